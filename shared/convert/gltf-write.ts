@@ -16,6 +16,7 @@
  *   binary container with the buffer as its BIN chunk. Numbers are little-endian (DataView).
  */
 import { encodeBase64 } from './base64';
+import { encodeUtf8 } from './utf8';
 
 export type GltfInterpolation = 'STEP' | 'LINEAR' | 'CUBICSPLINE';
 
@@ -173,7 +174,7 @@ export function writeGltf(tracks: readonly GltfTrack[], opts: GltfWriteOptions =
 export function writeGlb(json: GltfJson, bin: Uint8Array): Uint8Array {
   const { uri: _uri, ...buffer0 } = json.buffers[0];
   const glbJson = { ...json, buffers: [buffer0, ...json.buffers.slice(1)] };
-  const jsonBytes = new TextEncoder().encode(JSON.stringify(glbJson));
+  const jsonBytes = encodeUtf8(JSON.stringify(glbJson));
   const jsonLen = (jsonBytes.length + 3) & ~3;
   const binLen = (bin.length + 3) & ~3;
   const total = 12 + 8 + jsonLen + 8 + binLen;

@@ -18,7 +18,8 @@ export function loadWithThree(input: string | ArrayBuffer): Promise<AnimationCli
 export function threeSample(track: KeyframeTrack, t: number): number {
   const size = track.getValueSize();
   // GLTFLoader installs this named factory on CUBICSPLINE tracks (GLTFLoader.js _createCubicSplineTrackInterpolant).
-  const custom = (track.createInterpolant as unknown as { name?: string }).name === 'InterpolantFactoryMethodGLTFCubicSpline';
+  const tr = track as unknown as { createInterpolant: ((out: Float64Array) => { evaluate(t: number): ArrayLike<number> }) & { name?: string } };
+  const custom = tr.createInterpolant.name === 'InterpolantFactoryMethodGLTFCubicSpline';
   const out = new Float64Array(custom ? size / 3 : size);
-  return track.createInterpolant(out).evaluate(t)[0];
+  return tr.createInterpolant(out).evaluate(t)[0];
 }
