@@ -1,0 +1,33 @@
+import { useState } from 'react';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { HomePage } from '../pages/home-page';
+import { NotFoundPage } from '../pages/not-found-page';
+import { SignInPage } from '../pages/sign-in-page';
+import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
+import { AppLayout } from './layout/app-layout';
+
+/**
+ * All routes. The layout route carries a last-resort errorElement; the pathless child catches page
+ * errors so they render inside the layout, top bar included.
+ */
+export const routes: RouteObject[] = [
+  {
+    element: <AppLayout />,
+    errorElement: <RootErrorBoundary />,
+    children: [
+      {
+        errorElement: <RouteErrorBoundary />,
+        children: [
+          { index: true, element: <HomePage /> },
+          { path: 'sign-in', element: <SignInPage /> },
+          { path: '*', element: <NotFoundPage /> },
+        ],
+      },
+    ],
+  },
+];
+
+export function AppRouter() {
+  const [router] = useState(() => createBrowserRouter(routes));
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,20 @@
+import { ServiceStatusCard } from '../features/health/components/service-status-card';
+
+export function HomePage() {
+  return (
+    <div className="grid gap-10 lg:grid-cols-[minmax(0,1fr)_minmax(0,36rem)] lg:items-start">
+      <title>Tangentry</title>
+      <section aria-labelledby="home-heading" className="max-w-prose">
+        <h1 id="home-heading" className="text-3xl font-semibold tracking-tight sm:text-4xl">
+          The shared curve library for game studios
+        </h1>
+        <p className="mt-4 text-lg leading-relaxed text-ink/85 dark:text-paper/85">
+          Animators shape curves here; Tangentry bakes each one for every target platform into the
+          smallest runtime table that stays within that platform's error budget, proves the bound, and
+          hands the approved version to your build servers.
+        </p>
+      </section>
+      <ServiceStatusCard />
+    </div>
+  );
+}
