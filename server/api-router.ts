@@ -1,0 +1,12 @@
+import { Router } from 'express';
+import type { AppContext } from './context';
+import { healthRoutes } from './health/health.routes';
+import { notFoundApi } from './http/error-middleware';
+
+/** Every API resource under /api, one line each. The 404 for unknown API paths comes last. */
+export function apiRouter(ctx: AppContext): Router {
+  const api = Router();
+  api.use(healthRoutes(ctx));
+  api.use(notFoundApi);
+  return api;
+}

@@ -1,0 +1,101 @@
+/**
+ * Configuration from environment variables, validated with zod at start-up.
+ * A bad value stops start-up with a message naming the variable.
+ */
+import { z } from 'zod';
+
+const port = z.coerce.number().int().min(1, 'must be a port number 1–65535').max(65535, 'must be a port number 1–65535');
+const bool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'], { message: 'must be true or false' })
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+export const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('production'),
+  PORT: port.default(3000),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PUBLIC_URL: z.url({ message: 'must be an absolute URL such as https://curves.example.test' }).optional(),
+  DATABASE_URL: z
+    .string({ message: 'is required' })
+    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// URL'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  S3_ENDPOINT: z.url({ message: 'must be an absolute URL such as http://127.0.0.1:4569' }).optional(),
+  S3_BUCKET: z
+    .string()
+    .min(3, 'must be 3–63 characters')
+    .max(63, 'must be 3–63 characters')
+    .regex(/^[a-z0-9][a-z0-9.-]+[a-z0-9]$/, 'must be lower-case letters, digits, dots and hyphens')
+    .default('tangentry-library'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1, 'is required when S3_ENDPOINT is set').optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1, 'is required when S3_ENDPOINT is set').optional(),
+  S3_FORCE_PATH_STYLE: bool.default(true),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL').optional(),
+  MAIL_FROM: z.string().min(3).default('Tangentry <no-reply@tangentry.test>'),
+  /** Folder where the embedded mail catcher keeps messages (shown on the outbox page). */
+  MAIL_CATCHER_DIR: z.string().min(1).optional(),
+  SESSION_TTL_HOURS: z.coerce.number().min(1, 'must be at least 1 hour').max(24 * 90).default(24 * 14),
+  SESSION_SECURE_COOKIE: bool.optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export interface Config {
+  env: Env['NODE_ENV'];
+  port: number;
+  host: string;
+  publicUrl: string;
+  databaseUrl: string;
+  databasePoolMax: number;
+  s3: { endpoint?: string; bucket: string; region: string; accessKeyId?: string; secretAccessKey?: string; forcePathStyle: boolean };
+  smtpUrl?: string;
+  mailFrom: string;
+  mailCatcherDir?: string;
+  session: { ttlHours: number; secureCookie: boolean };
+  logLevel: Env['LOG_LEVEL'];
+}
+
+export class ConfigError extends Error {
+  constructor(public readonly problems: { variable: string; message: string }[]) {
+    super(`Invalid configuration:\n${problems.map((p) => `  ${p.variable}: ${p.message}`).join('\n')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+/** Parse and check the environment. Throws ConfigError naming each bad variable. */
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
+  const raw = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ''));
+  const parsed = envSchema.safeParse(raw);
+  if (!parsed.success) {
+    throw new ConfigError(parsed.error.issues.map((i) => ({ variable: String(i.path[0] ?? '?'), message: i.message })));
+  }
+  const e = parsed.data;
+  const problems: { variable: string; message: string }[] = [];
+  if (e.S3_ENDPOINT && (!e.S3_ACCESS_KEY_ID || !e.S3_SECRET_ACCESS_KEY)) {
+    if (!e.S3_ACCESS_KEY_ID) problems.push({ variable: 'S3_ACCESS_KEY_ID', message: 'is required when S3_ENDPOINT is set' });
+    if (!e.S3_SECRET_ACCESS_KEY) problems.push({ variable: 'S3_SECRET_ACCESS_KEY', message: 'is required when S3_ENDPOINT is set' });
+  }
+  if (problems.length) throw new ConfigError(problems);
+  const publicUrl = (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, '');
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    publicUrl,
+    databaseUrl: e.DATABASE_URL,
+    databasePoolMax: e.DATABASE_POOL_MAX,
+    s3: {
+      endpoint: e.S3_ENDPOINT,
+      bucket: e.S3_BUCKET,
+      region: e.S3_REGION,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE,
+    },
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    mailCatcherDir: e.MAIL_CATCHER_DIR,
+    session: { ttlHours: e.SESSION_TTL_HOURS, secureCookie: e.SESSION_SECURE_COOKIE ?? publicUrl.startsWith('https://') },
+    logLevel: e.LOG_LEVEL,
+  };
+}

@@ -1,0 +1,31 @@
+import type { Sequelize } from 'sequelize';
+import type { S3Client } from '@aws-sdk/client-s3';
+import type { Transporter } from 'nodemailer';
+import type { Logger } from 'pino';
+import type { Config } from './config';
+import { createSequelize } from './db/sequelize';
+import { initModels } from './models';
+import { createS3Client } from './storage/s3-client';
+import { createMailTransport } from './mail/transport';
+import { createLogger } from './logger';
+
+/** What every route and service needs, made once per process and passed down (no globals to import). */
+export interface AppContext {
+  config: Config;
+  logger: Logger;
+  sequelize: Sequelize;
+  s3: S3Client;
+  mail: Transporter | null;
+}
+
+export function createContext(config: Config, logger: Logger = createLogger(config.logLevel)): AppContext {
+  const sequelize = createSequelize(config.databaseUrl, config.databasePoolMax);
+  initModels(sequelize);
+  return { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config) };
+}
+
+export async function closeContext(ctx: AppContext): Promise<void> {
+  ctx.mail?.close();
+  ctx.s3.destroy();
+  await ctx.sequelize.close();
+}

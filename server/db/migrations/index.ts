@@ -1,0 +1,11 @@
+import type { MigrationContext } from '../migrate';
+import * as m0001 from './0001-studios-and-teams';
+
+export interface Migration {
+  name: string;
+  up(ctx: MigrationContext): Promise<void>;
+  down(ctx: MigrationContext): Promise<void>;
+}
+
+/** Every migration in order. Add new ones at the end; never edit one that has shipped. */
+export const migrations: Migration[] = [{ name: '0001-studios-and-teams', ...m0001 }];
