@@ -125,10 +125,17 @@ function parseOrThrow(src: string): CssEasing {
   let k = 0;
   const peek = () => toks[k];
   const next = () => toks[k++];
-  const describe = (t: Token) =>
-    t.type === 'end' ? 'end of input' : t.type === 'comma' ? "','" : t.type === 'close' ? "')'" :
-      t.type === 'number' ? `number ${t.text}` : t.type === 'percentage' ? `percentage ${t.value}%` :
-        t.type === 'function' ? `function ${t.value}(` : `'${t.value}'`;
+  const describe = (t: Token): string => {
+    switch (t.type) {
+      case 'end': return 'end of input';
+      case 'comma': return "','";
+      case 'close': return "')'";
+      case 'number': return `number ${t.text}`;
+      case 'percentage': return `percentage ${t.value}%`;
+      case 'function': return `function ${t.value}(`;
+      case 'ident': return `'${t.value}'`;
+    }
+  };
   const expectEnd = () => {
     const t = peek();
     if (t.type !== 'end') throw new CssError(`unexpected ${describe(t)} after the easing function`, t.pos);
