@@ -77,7 +77,8 @@ if (mode === 'test' && !existsSync('/usr/bin/chromium')) {
 const child = spawn(join(root, 'node_modules', '.bin', 'tsx'), [entries[mode], ...process.argv.slice(3)], {
   cwd: root,
   stdio: 'inherit',
-  env: { ...process.env, TANGENTRY_MODE: mode },
+  // The pinned AWS SDK still supports Node 20; its notice about future versions is noise in every log.
+  env: { AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true', ...process.env, TANGENTRY_MODE: mode },
 });
 for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
   process.on(sig, () => child.kill(sig));
