@@ -1,0 +1,151 @@
+/**
+ * Adaptive layout: knots where the curve needs them, times stored (float32).
+ *
+ * 1. Forced knots on every jump and slope break (./breaks.ts, order ≤ 1) and at both ends. A jump is
+ *    stored as two entries with the same time (left limit, then right value) at the smallest float32
+ *    time ≥ the jump, so every float32 time sees the same side as the source; a slope break as two
+ *    entries with the same time and value (in-slope, then out-slope; the linear kernel needs one).
+ * 2. Between forced knots, greedy placement: from knot a the first trial width comes from the local
+ *    bound (h = (384·tol/2/M4)^¼ hermite, √(8·tol/2/M2) linear, M from the source segment at a); then
+ *    galloping (double while the measured single-interval error meets the target) and bisection (10
+ *    steps) find the widest next interval that the certified measure accepts.
+ * 3. Merge: the knot before each forced knot is removed when the merged interval still passes.
+ * 4. The whole encoded table is measured again; if it misses (rare), the target shrinks by 0.8 and
+ *    placement repeats (at most 5 times).
+ * Knot values/slopes are the source's exact one-sided values at the knot; unorm offset/scale come from
+ * the source's value and slope ranges, so each interval is measured with its final encoding.
+ */
+import type { BakeSource } from './source';
+import type { Profile } from './profile';
+import type { Break } from './breaks';
+import { measureError, type ErrorMeasure } from './measure';
+import type { Table } from './table';
+import { assembleTable, leftValue, rightValue } from './knots';
+import { boundOrder, widthForTolerance } from './bound';
+import { ceilF32, encodeOne, decodeOne, makeQuantizer, type Quantizer } from './encoding';
+import { sourceRange } from './ranges';
+import { segmentAt } from './source';
+
+export interface AdaptiveResult { table: Table; measure: ErrorMeasure }
+
+interface Knot { stored: number; src: number; v: number; m: number; forced: boolean }
+
+const VIEW_T = new Float64Array(2);
+const VIEW_V = new Float64Array(2);
+const VIEW_M = new Float64Array(2);
+
+export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, breaks: readonly Break[]): AdaptiveResult | string {
+  const S = src.times;
+  const A = S[0], B = S[S.length - 1];
+  const hermite = profile.kernel === 'hermite';
+  const vr = sourceRange(src, 0);
+  const qv = makeQuantizer(profile.encoding, vr.min, vr.max);
+  let qm: Quantizer | undefined;
+  if (hermite) {
+    const mr = sourceRange(src, 1);
+    qm = makeQuantizer(profile.encoding, mr.min, mr.max);
+  }
+  const rt = (q: Quantizer, x: number) => decodeOne(q, encodeOne(q, x));
+  const forcedTimes = breaks.filter((b) => b.order <= 1);
+  const view = { kernel: profile.kernel, times: VIEW_T, values: VIEW_V, slopes: hermite ? VIEW_M : null };
+  const opts = { tolerance: tol };
+  const intervalOpts = { tolerance: tol, includeEnd: false };
+
+  let target = tol;
+  for (let attempt = 0; attempt < 5; attempt++) {
+    const knots: Knot[] = [];
+    // one interval [a, b] (a: right values at a.src; b: left values at bSrc) within target?
+    const intervalOk = (a: Knot, bStored: number, bSrc: number, bv: number, bm: number): boolean => {
+      VIEW_T[0] = a.stored; VIEW_T[1] = bStored;
+      VIEW_V[0] = rt(qv, a.v); VIEW_V[1] = rt(qv, bv);
+      if (hermite) { VIEW_M[0] = rt(qm!, a.m); VIEW_M[1] = rt(qm!, bm); }
+      const m = measureError(src, view, intervalOpts, a.stored, bStored === Math.fround(B) ? B : bStored);
+      void bSrc;
+      return m.certified <= target;
+    };
+    let failure: string | null = null;
+    const spanEnds: { stored: number; src: number; br: Break | null }[] = forcedTimes
+      .map((br) => ({ stored: br.order === 0 ? ceilF32(br.time) : Math.fround(br.time), src: br.time, br }));
+    if (!spanEnds.length || spanEnds[spanEnds.length - 1].src < B) spanEnds.push({ stored: Math.fround(B), src: B, br: null });
+    let a: Knot = { stored: Math.fround(A), src: A, v: rightValue(src, A, 0), m: hermite ? rightValue(src, A, 1) : 0, forced: true };
+    knots.push(a);
+    for (const end of spanEnds) {
+      const endV = leftValue(src, end.src, 0), endM = hermite ? leftValue(src, end.src, 1) : 0;
+      const spanStart = knots.length - 1;
+      let h = 0;
+      while (a.stored < end.stored) {
+        if (intervalOk(a, end.stored, end.src, endV, endM)) break; // the rest of the span fits
+        // first guess from the local bound (or the previous width)
+        if (!(h > 0)) {
+          const i = segmentAt(src, a.src);
+          const M = src.bound(i, boundOrder(profile.kernel), a.src, Math.min(S[i + 1], end.src));
+          h = widthForTolerance(profile.kernel, M, target / 2);
+          if (!Number.isFinite(h)) h = (end.src - a.src) / 2;
+        }
+        const span = end.src - a.src;
+        h = Math.min(Math.max(h, span * 1e-6), span / 2);
+        const okAt = (w: number): number | null => {
+          const t = Math.fround(a.src + w);
+          if (!(t > a.stored) || !(t < end.stored)) return null;
+          return intervalOk(a, t, t, leftValue(src, t, 0), hermite ? leftValue(src, t, 1) : 0) ? t : null;
+        };
+        let lo = 0, hi = 0;
+        if (okAt(h) !== null) {
+          lo = h;
+          for (;;) {
+            const w = Math.min(2 * lo, span);
+            if (w >= span) { hi = span; break; }
+            if (okAt(w) !== null) lo = w; else { hi = w; break; }
+          }
+        } else {
+          hi = h;
+          for (;;) {
+            const w = hi / 2;
+            if (w < span * 1e-7 || Math.fround(a.src + w) <= a.stored) { failure = `curve "${src.name}": cannot stay within ${tol.toPrecision(3)} near t = ${a.src} s (the encoding's round-off is too large for the tolerance)`; break; }
+            if (okAt(w) !== null) { lo = w; break; }
+            hi = w;
+          }
+          if (failure) break;
+        }
+        for (let it = 0; it < 10 && hi - lo > 1e-4 * lo; it++) {
+          const mid = 0.5 * (lo + hi);
+          if (okAt(mid) !== null) lo = mid; else hi = mid;
+        }
+        const t = Math.fround(a.src + lo);
+        h = lo;
+        a = { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightValue(src, t, 1) : 0, forced: false };
+        knots.push(a);
+      }
+      if (failure) break;
+      // merge: drop the last free knot of the span when the merged interval passes
+      if (knots.length - 1 > spanStart + 1) {
+        const last = knots[knots.length - 1], prev = knots[knots.length - 2];
+        void last;
+        if (intervalOk(prev, end.stored, end.src, endV, endM)) knots.pop();
+      }
+      // close the span with the forced knot(s)
+      const leftKnot: Knot = { stored: end.stored, src: end.src, v: endV, m: endM, forced: true };
+      knots.push(leftKnot);
+      if (end.br) {
+        const br = end.br;
+        const rv = br.right >= 0 ? src.value(br.right, br.time, 0) : src.endValue;
+        const rm = hermite && br.right >= 0 ? src.value(br.right, br.time, 1) : endM;
+        if (br.order === 0 || hermite) knots.push({ stored: end.stored, src: end.src, v: rv, m: rm, forced: true });
+        a = knots[knots.length - 1];
+      }
+    }
+    if (failure) return failure;
+    const n = knots.length;
+    const times = new Float64Array(n), stored = new Float32Array(n), values = new Float64Array(n);
+    const slopes = hermite ? new Float64Array(n) : null;
+    for (let k = 0; k < n; k++) {
+      stored[k] = knots[k].stored; times[k] = stored[k]; values[k] = knots[k].v;
+      if (slopes) slopes[k] = knots[k].m;
+    }
+    const table = assembleTable(profile, times, stored, values, slopes, qv, qm);
+    const measure = measureError(src, table, opts);
+    if (measure.certified <= tol) return { table, measure };
+    target *= 0.8;
+  }
+  return `curve "${src.name}": the adaptive table did not meet ${tol.toPrecision(3)} after 5 attempts`;
+}

@@ -1,0 +1,58 @@
+/**
+ * Value and slope ranges of a source curve over its domain: exact on cubic segments (extremes at the
+ * ends or at roots of the derivative), 65 equally spaced samples per segment otherwise. Used for the
+ * relative tolerance (tolerance × value range) and for the unorm offset/scale of adaptive tables.
+ */
+import type { BakeSource } from './source';
+import { cubicAt } from './poly';
+
+export interface Range { min: number; max: number }
+
+const SAMPLES = 64;
+
+function consider(r: Range, x: number): void {
+  if (x < r.min) r.min = x;
+  if (x > r.max) r.max = x;
+}
+
+/** Range of f (order 0) or f' (order 1) over the domain, including the end value. */
+export function sourceRange(src: BakeSource, order: 0 | 1): Range {
+  const T = src.times;
+  const r: Range = { min: Infinity, max: -Infinity };
+  for (let i = 0; i < T.length - 1; i++) {
+    const a = T[i], b = T[i + 1];
+    if (!(b > a)) continue;
+    const L = b - a;
+    const p = src.poly(i);
+    if (p) {
+      // derivative polynomial coefficients for order 1: p'(u) = c1 + 2c2 u + 3c3 u²
+      const c0 = order === 0 ? p[0] : p[1];
+      const c1 = order === 0 ? p[1] : 2 * p[2];
+      const c2 = order === 0 ? p[2] : 3 * p[3];
+      const c3 = order === 0 ? p[3] : 0;
+      const at = (u: number) => c0 + u * (c1 + u * (c2 + u * c3));
+      consider(r, at(0));
+      consider(r, at(L));
+      // critical points: c1 + 2c2 u + 3c3 u² = 0
+      const A = 3 * c3, B = 2 * c2, C = c1;
+      if (A !== 0) {
+        const d = B * B - 4 * A * C;
+        if (d >= 0) {
+          const q = -0.5 * (B + (B >= 0 ? Math.sqrt(d) : -Math.sqrt(d)));
+          if (q !== 0) {
+            for (const u of [q / A, C / q]) if (u > 0 && u < L) consider(r, at(u));
+          }
+        }
+      } else if (B !== 0) {
+        const u = -C / B;
+        if (u > 0 && u < L) consider(r, at(u));
+      }
+      void cubicAt;
+    } else {
+      for (let j = 0; j <= SAMPLES; j++) consider(r, src.value(i, j === SAMPLES ? b : a + (j * L) / SAMPLES, order));
+    }
+  }
+  if (order === 0) consider(r, src.endValue);
+  if (!Number.isFinite(r.min)) { r.min = 0; r.max = 0; }
+  return r;
+}
