@@ -12,6 +12,7 @@ import { startEmbeddedPostgres, type EmbeddedPostgres } from './services/postgre
 import { startS3Fake, type S3Fake } from '../storage-fake/s3';
 import { startMailCatcher, type MailCatcher } from '../storage-fake/mail-catcher';
 import { DEMO_PASSWORD_NOTE } from './demo-accounts';
+import { preferPort } from './services/free-port';
 
 const root = resolve(import.meta.dirname, '..');
 const dataDir = join(root, '.data');
@@ -37,7 +38,7 @@ async function main(): Promise<void> {
   loadConfig({ DATABASE_URL: 'postgres://placeholder/db', ...env });
 
   if (!env.DATABASE_URL) {
-    started.pg = await startEmbeddedPostgres({ dataDir: join(dataDir, 'postgres'), database: 'tangentry', port: Number(env.PG_PORT) || undefined });
+    started.pg = await startEmbeddedPostgres({ dataDir: join(dataDir, 'postgres'), database: 'tangentry', port: Number(env.PG_PORT) || (await preferPort(54329)) });
     env.DATABASE_URL = started.pg.url();
     console.log(`PostgreSQL (embedded) on 127.0.0.1:${started.pg.port}, data in .data/postgres`);
   }

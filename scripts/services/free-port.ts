@@ -13,3 +13,13 @@ export function freePort(): Promise<number> {
     });
   });
 }
+
+/** The preferred port when it is free on loopback, else any free one. */
+export function preferPort(preferred: number): Promise<number> {
+  return new Promise((resolve) => {
+    const srv = createServer();
+    srv.unref();
+    srv.once('error', () => void freePort().then(resolve));
+    srv.listen(preferred, '127.0.0.1', () => srv.close(() => resolve(preferred)));
+  });
+}
