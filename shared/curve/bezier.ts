@@ -1,0 +1,169 @@
+/**
+ * Cubic Bézier segments with CSS cubic-bezier() semantics (W3C CSS Easing Functions Level 1 §2.2):
+ * time is a cubic x(s) of the curve parameter s ∈ [0, 1] and value is a cubic y(s); to evaluate at
+ * time t solve x(s) = t, then take y(s). With handle times inside the segment x is non-decreasing,
+ * so the root is unique (where x' > 0).
+ *
+ * Power basis of a Bernstein cubic P(s) = (1−s)³p0 + 3(1−s)²s p1 + 3(1−s)s² p2 + s³ p3:
+ *   P(s) = p0 + s(c + s(b + s·a)),  c = 3(p1 − p0),  b = 3(p2 − 2p1 + p0),  a = p3 − p0 − c − b.
+ * Derivatives with respect to time by the chain rule (x', y' … are d/ds):
+ *   dy/dt   = y'/x'
+ *   d²y/dt² = N/x'³,               N  = y''x' − y'x''
+ *   d³y/dt³ = M/x'⁵,               M  = N'x' − 3N x'',   N' = y'''x' − y'x'''
+ *   d⁴y/dt⁴ = (M'x' − 5M x'')/x'⁷,  M' = N''x' − 2N'x'' − 3N x''',  N'' = y'''x'' − y''x'''
+ */
+
+/** Iteration cap of bezierSolve: bisection alone reaches double resolution on [0, 1] in 53 steps. */
+export const BEZIER_MAX_ITERATIONS = 100;
+/** bezierSolve stops when a Newton step or the bracket is below this (in s). */
+export const BEZIER_TOLERANCE = 2 ** -53;
+
+/**
+ * The parameter s ∈ [0, 1] with x(s) = t for the Bernstein cubic x0..x3 (x0 ≤ x1, x2 ≤ x3 assumed,
+ * so x is non-decreasing). Safeguarded Newton: a bracket [lo, hi] with x(lo) ≤ t ≤ x(hi) is kept;
+ * the Newton step s − (x(s) − t)/x'(s) is taken when it stays strictly inside the bracket, else the
+ * bracket is bisected (so it converges even where x' = 0, i.e. near-vertical handles). Stops when
+ * x(s) = t exactly, a step or the bracket is ≤ BEZIER_TOLERANCE, or after BEZIER_MAX_ITERATIONS.
+ * t ≤ x0 gives 0 and t ≥ x3 gives 1.
+ */
+export function bezierSolve(x0: number, x1: number, x2: number, x3: number, t: number): number {
+  if (!(t > x0)) return 0;
+  if (!(t < x3)) return 1;
+  const c = 3 * (x1 - x0);
+  const b = 3 * (x2 - 2 * x1 + x0);
+  const a = x3 - x0 - c - b;
+  let lo = 0;
+  let hi = 1;
+  let s = (t - x0) / (x3 - x0);
+  for (let iter = 0; iter < BEZIER_MAX_ITERATIONS; iter++) {
+    const f = x0 + s * (c + s * (b + s * a)) - t;
+    if (f === 0) return s;
+    if (f < 0) lo = s;
+    else hi = s;
+    const d = c + s * (2 * b + 3 * a * s);
+    let next = d > 0 ? s - f / d : NaN;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - s) <= BEZIER_TOLERANCE || hi - lo <= BEZIER_TOLERANCE) return next;
+    s = next;
+  }
+  return s;
+}
+
+/** The Bernstein cubic p0..p3 or its derivative d^k/ds^k (k = 0..3; 0 for k ≥ 4) at s. */
+export function bernstein(p0: number, p1: number, p2: number, p3: number, s: number, k: number): number {
+  const c = 3 * (p1 - p0);
+  const b = 3 * (p2 - 2 * p1 + p0);
+  const a = p3 - p0 - c - b;
+  switch (k) {
+    case 0: return p0 + s * (c + s * (b + s * a));
+    case 1: return c + s * (2 * b + 3 * a * s);
+    case 2: return 2 * b + 6 * a * s;
+    case 3: return 6 * a;
+    default: return 0;
+  }
+}
+
+/**
+ * Value (order 0) or d^k y/dX^k (order 1..4) of a normalised Bézier segment: time X ∈ [0, 1] with
+ * x-controls 0, x1, x2, 1 and value controls y0..y3. Derivatives are with respect to X; divide by
+ * the segment duration^k for seconds. Where x'(s) = 0 a derivative is ±Infinity (vertical tangent).
+ */
+export function bezierEase(
+  x1: number, x2: number, y0: number, y1: number, y2: number, y3: number, X: number, order: number,
+): number {
+  const s = bezierSolve(0, x1, x2, 1, X);
+  if (order === 0) return bernstein(y0, y1, y2, y3, s, 0);
+  const xd1 = bernstein(0, x1, x2, 1, s, 1);
+  const yd1 = bernstein(y0, y1, y2, y3, s, 1);
+  if (order === 1) return yd1 / xd1;
+  const xd2 = bernstein(0, x1, x2, 1, s, 2);
+  const yd2 = bernstein(y0, y1, y2, y3, s, 2);
+  const N = yd2 * xd1 - yd1 * xd2;
+  if (order === 2) return N / (xd1 * xd1 * xd1);
+  const xd3 = bernstein(0, x1, x2, 1, s, 3);
+  const yd3 = bernstein(y0, y1, y2, y3, s, 3);
+  const N1 = yd3 * xd1 - yd1 * xd3;
+  const M = N1 * xd1 - 3 * N * xd2;
+  const x2p = xd1 * xd1;
+  if (order === 3) return M / (x2p * x2p * xd1);
+  const N2 = yd3 * xd2 - yd2 * xd3;
+  const M1 = N2 * xd1 - 2 * N1 * xd2 - 3 * N * xd3;
+  return (M1 * xd1 - 5 * M * xd2) / (x2p * x2p * x2p * xd1);
+}
+
+/** max |P^(k)| over s ∈ [a, b] for the Bernstein cubic (k = 1 quadratic, 2 linear, 3 constant). */
+function maxAbsDerivative(p0: number, p1: number, p2: number, p3: number, k: number, a: number, b: number): number {
+  let m = Math.max(Math.abs(bernstein(p0, p1, p2, p3, a, k)), Math.abs(bernstein(p0, p1, p2, p3, b, k)));
+  if (k === 1) {
+    const bb = 3 * (p2 - 2 * p1 + p0);
+    const aa = p3 - p0 - 3 * (p1 - p0) - bb;
+    if (aa !== 0) {
+      const v = -bb / (3 * aa);
+      if (v > a && v < b) m = Math.max(m, Math.abs(bernstein(p0, p1, p2, p3, v, 1)));
+    }
+  }
+  return m;
+}
+
+/** min x'(s) over [a, b] (x' is a quadratic: ends and vertex). */
+function minXSpeed(x1: number, x2: number, a: number, b: number): number {
+  let m = Math.min(bernstein(0, x1, x2, 1, a, 1), bernstein(0, x1, x2, 1, b, 1));
+  const bb = 3 * (x2 - 2 * x1);
+  const aa = 1 - 3 * x1 - bb;
+  if (aa !== 0) {
+    const v = -bb / (3 * aa);
+    if (v > a && v < b) m = Math.min(m, bernstein(0, x1, x2, 1, v, 1));
+  }
+  return m;
+}
+
+/**
+ * A rigorous upper bound of |d^k y/dX^k| over X ∈ [Xa, Xb] for the normalised Bézier segment,
+ * by interval reasoning on the chain-rule formulas above: the parameter range [sa, sb] is solved
+ * and widened by 1e-12, each |y^(j)|, |x^(j)| is replaced by its exact max there and x' by its exact
+ * min, then the triangle inequality. Infinity when x' reaches 0 on the range (vertical tangent).
+ */
+export function bezierEaseBound(
+  x1: number, x2: number, y0: number, y1: number, y2: number, y3: number, order: number, Xa: number, Xb: number,
+): number {
+  const sa = Math.max(0, bezierSolve(0, x1, x2, 1, Math.min(Xa, Xb)) - 1e-12);
+  const sb = Math.min(1, bezierSolve(0, x1, x2, 1, Math.max(Xa, Xb)) + 1e-12);
+  const xmin = minXSpeed(x1, x2, sa, sb);
+  if (!(xmin > 0)) return Infinity;
+  const X1 = maxAbsDerivative(0, x1, x2, 1, 1, sa, sb);
+  const X2 = maxAbsDerivative(0, x1, x2, 1, 2, sa, sb);
+  const X3 = maxAbsDerivative(0, x1, x2, 1, 3, sa, sb);
+  const Y1 = maxAbsDerivative(y0, y1, y2, y3, 1, sa, sb);
+  const Y2 = maxAbsDerivative(y0, y1, y2, y3, 2, sa, sb);
+  const Y3 = maxAbsDerivative(y0, y1, y2, y3, 3, sa, sb);
+  const N = Y2 * X1 + Y1 * X2;
+  const N1 = Y3 * X1 + Y1 * X3;
+  const N2 = Y3 * X2 + Y2 * X3;
+  const M = N1 * X1 + 3 * N * X2;
+  const M1 = N2 * X1 + 2 * N1 * X2 + 3 * N * X3;
+  let r: number;
+  switch (order) {
+    case 1: r = Y1 / xmin; break;
+    case 2: r = N / xmin ** 3; break;
+    case 3: r = M / xmin ** 5; break;
+    default: r = (M1 * X1 + 5 * M * X2) / xmin ** 7;
+  }
+  return r * (1 + 1e-12);
+}
+
+/**
+ * The slope dy/dX where the segment leaves its start, as CSS Easing extends a cubic-bezier for
+ * input < 0: along P0→P1 if x1 > 0, else along P0→P2 if x2 > 0, else 0.
+ */
+export function bezierStartSlope(x1: number, x2: number, y0: number, y1: number, y2: number): number {
+  if (x1 > 0) return (y1 - y0) / x1;
+  if (x2 > 0) return (y2 - y0) / x2;
+  return 0;
+}
+
+/** The slope dy/dX at the segment end, as CSS Easing extends input > 1: P2→P3 if x2 < 1, else P1→P3 if x1 < 1, else 0. */
+export function bezierEndSlope(x1: number, x2: number, y1: number, y2: number, y3: number): number {
+  if (x2 < 1) return (y3 - y2) / (1 - x2);
+  if (x1 < 1) return (y3 - y1) / (1 - x1);
+  return 0;
+}
