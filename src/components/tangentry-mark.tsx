@@ -2,13 +2,12 @@ import { useId } from 'react';
 
 /**
  * Tangentry's own mark, drawn like a drafting-table detail: an easing curve between two corner
- * registration ticks, with one key (a filled ink circle ringed in vermilion, as a selected key)
- * and its slope handle (a thin line with hollow squares at both ends) laid along the curve's
- * tangent at that key.
+ * registration ticks. Its first key is selected (a filled ink circle ringed in vermilion) and shows
+ * its out-slope handle (a thin line ending in a hollow square); the last key is a plain ink dot.
  *
- * Geometry (viewBox 32×32): the curve is the cubic Bézier P0(6,25) P1(14,25) P2(12,7) P3(26,7).
- * At t = ½ the point is (P0 + 3P1 + 3P2 + P3)/8 = (13.75, 16) and the tangent direction is
- * P3 + P2 − P1 − P0 = (18, −36) ∝ (1, −2), so the handle ends sit at (13.75, 16) ± 6·(1, −2)/√5.
+ * Geometry (viewBox 32×32): the curve is the cubic Bézier P0(6,24) P1(17,24) P2(15,8) P3(26,8).
+ * The handle runs from P0 to P1, which is the curve's tangent at P0 (B'(0) = 3(P1 − P0)), so the
+ * curve leaves the key along the handle and then bends away from it.
  * The same drawing is inlined as the favicon in index.html.
  */
 export function TangentryMark({
@@ -31,50 +30,37 @@ export function TangentryMark({
       focusable="false"
     >
       {labelled && <title id={titleId}>{title}</title>}
-      {/* registration ticks at the lower-left and upper-right corners */}
+      {/* registration ticks at the upper-left and lower-right corners */}
       <path
-        d="M3 23.5V29h5.5M29 8.5V3h-5.5"
+        d="M3 9V3h6M29 23v6h-6"
         fill="none"
         className="stroke-grid-major"
         strokeWidth="1.5"
-        strokeLinecap="square"
       />
       {/* the curve */}
       <path
-        d="M6 25C14 25 12 7 26 7"
+        d="M6 24C17 24 15 8 26 8"
         fill="none"
         className="stroke-ink dark:stroke-paper"
         strokeWidth="2.25"
         strokeLinecap="round"
       />
-      {/* slope handle along the tangent at t = 1/2 */}
-      <path
-        d="M11.07 21.37L16.43 10.63"
-        fill="none"
-        className="stroke-ink dark:stroke-paper"
-        strokeWidth="1"
-      />
+      {/* out-slope handle of the first key: P0 → P1 */}
+      <path d="M6 24H15.25" fill="none" className="stroke-ink dark:stroke-paper" strokeWidth="1.25" />
       <rect
-        x="9.57"
-        y="19.87"
-        width="3"
-        height="3"
+        x="15.25"
+        y="22.25"
+        width="3.5"
+        height="3.5"
         fill="none"
         className="stroke-ink dark:stroke-paper"
-        strokeWidth="1"
+        strokeWidth="1.25"
       />
-      <rect
-        x="14.93"
-        y="9.13"
-        width="3"
-        height="3"
-        fill="none"
-        className="stroke-ink dark:stroke-paper"
-        strokeWidth="1"
-      />
-      {/* the key, selected */}
-      <circle cx="13.75" cy="16" r="3.6" fill="none" className="stroke-vermilion" strokeWidth="1.25" />
-      <circle cx="13.75" cy="16" r="2" className="fill-ink dark:fill-paper" />
+      {/* the last key */}
+      <circle cx="26" cy="8" r="1.9" className="fill-ink dark:fill-paper" />
+      {/* the first key, selected */}
+      <circle cx="6" cy="24" r="3.9" fill="none" className="stroke-vermilion" strokeWidth="1.4" />
+      <circle cx="6" cy="24" r="2.1" className="fill-ink dark:fill-paper" />
     </svg>
   );
 }

@@ -1,3 +1,4 @@
+import { DraftingSketch } from '../components/drafting-sketch';
 import { ServiceStatusCard } from '../features/health/components/service-status-card';
 
 export function HomePage() {
@@ -13,6 +14,13 @@ export function HomePage() {
           smallest runtime table that stays within that platform's error budget, proves the bound, and
           hands the approved version to your build servers.
         </p>
+        <figure className="mt-8 max-w-lg rounded-md border border-grid-major/70 bg-card/80 p-4 dark:border-night-line dark:bg-night-card/80">
+          <DraftingSketch className="h-auto w-full" />
+          <figcaption className="mt-3 border-t border-grid-minor pt-2 text-sm text-ink/65 dark:border-night-line dark:text-paper/65">
+            A curve with its keys and slope handles, the entries of a baked table, and the band its
+            error must stay within.
+          </figcaption>
+        </figure>
       </section>
       <ServiceStatusCard />
     </div>

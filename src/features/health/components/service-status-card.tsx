@@ -46,8 +46,8 @@ export function ServiceStatusCard() {
         {health.isError ? (
           <div className="px-5 py-4 text-sm">
             <p>
-              The server did not answer <code className="text-[0.95em]">GET /api/health</code>, so the state of
-              the database, storage and mail is unknown.
+              No health report came back from <code className="text-[0.95em]">GET /api/health</code>, so the
+              state of the database, storage and mail is unknown.
             </p>
             <p className="mt-2 font-mono text-xs text-ink/70 dark:text-paper/70">{health.error.message}</p>
           </div>
