@@ -5,7 +5,8 @@ import { DRIVES, MAX_KEYS, OUTSIDE_RULES, SHAPE_FAMILIES, SLOPE_RULES } from './
 /**
  * The zod 4 schema of a curve document (see ./types and docs/curve-format.md). Field checks come
  * first (finite numbers — zod 4's z.number() rejects NaN and ±Infinity —, enums, non-empty name);
- * the cross-field limits run after them in one superRefine:
+ * the cross-field limits run in one superRefine (zod 4 runs it too when only non-aborting field
+ * checks failed, so both kinds may be reported together):
  *   1 ≤ keys ≤ MAX_KEYS (a single key is a constant); times non-decreasing; at most two keys share
  *   a time (a jump); segments.length === keys.length − 1; a joined manual key has slopeIn ===
  *   slopeOut; a bezier segment carries `bezier` and its handle times lie in [t_i, t_{i+1}];
@@ -146,7 +147,7 @@ export function parseCurveDocument(input: unknown):
     let message = iss.message;
     if (iss.code === 'unrecognized_keys') message = `unknown field${iss.keys.length > 1 ? 's' : ''} ${iss.keys.join(', ')}`;
     const where = path || 'document';
-    return { path, message: message.startsWith(where) ? message : `${where}: ${message}` };
+    return { path, message: message.startsWith(`${where}:`) ? message : `${where}: ${message}` };
   });
   return { ok: false, issues };
 }
