@@ -66,11 +66,17 @@ export function hermitePower(p0: number, p1: number, m0: number, m1: number, h: 
   out[at + 3] = (m0 + m1 - 2 * d) / (h * h);
 }
 
-/** Resolve slope rules and precompute every segment's data (see PreparedCurve). */
+/**
+ * Resolve slope rules and precompute every segment's data (see PreparedCurve). The document must be
+ * valid (parseCurveDocument); a wrong segment count throws a RangeError naming the field.
+ */
 export function prepareCurve(doc: CurveDocument): PreparedCurve {
   const keys = resolveSlopes(doc.keys);
   const n = keys.length;
   const segs = Math.max(0, n - 1);
+  if (doc.segments.length !== segs) {
+    throw new RangeError(`segments: expected keys.length − 1 = ${segs} entries, got ${doc.segments.length}`);
+  }
   const times = new Float64Array(n);
   const values = new Float64Array(n);
   const slopesIn = new Float64Array(n);

@@ -1,6 +1,9 @@
 import { bezierEase, bezierEaseBound } from './bezier';
 import { maxAbsCubic, SAFETY } from './extrema';
-import { KIND_BEZIER, KIND_HERMITE, KIND_LINEAR, KIND_SHAPE, KIND_STEP, type PreparedCurve } from './prepare';
+import type { PreparedCurve } from './prepare';
+
+// Segment kinds are compared as literals (KIND_STEP = 0 … KIND_SHAPE = 4 in ./prepare): an imported
+// binding costs a property load per comparison once bundled to CommonJS, in the hottest loop.
 import { shapeDerivativeBound, shapeValue } from './shapes';
 
 /**
@@ -17,10 +20,10 @@ export function segmentValue(c: PreparedCurve, i: number, t: number, order: 0 | 
   const h = c.times[i + 1] - t0;
   if (!(h > 0)) return order === 0 ? c.values[i + 1] : 0;
   switch (c.kinds[i]) {
-    case KIND_STEP:
+    case 0 /* KIND_STEP */:
       return order === 0 ? c.values[i] : 0;
-    case KIND_LINEAR:
-    case KIND_HERMITE: {
+    case 1 /* KIND_LINEAR */:
+    case 2 /* KIND_HERMITE */: {
       const k = 4 * i;
       const q = c.coef;
       const u = t - t0;
@@ -32,7 +35,7 @@ export function segmentValue(c: PreparedCurve, i: number, t: number, order: 0 | 
         default: return 0;
       }
     }
-    case KIND_BEZIER: {
+    case 3 /* KIND_BEZIER */: {
       const b = c.bez;
       const o = 6 * i;
       const v = bezierEase(b[o], b[o + 1], b[o + 2], b[o + 3], b[o + 4], b[o + 5], (t - t0) / h, order);
@@ -58,7 +61,7 @@ export function segmentValue(c: PreparedCurve, i: number, t: number, order: 0 | 
 export function segmentPolynomial(c: PreparedCurve, i: number): Float64Array | null {
   const kind = c.kinds[i];
   const h = c.times[i + 1] - c.times[i];
-  if (h > 0 && (kind === KIND_BEZIER || kind === KIND_SHAPE)) return null;
+  if (h > 0 && (kind === 3 /* KIND_BEZIER */ || kind === 4 /* KIND_SHAPE */)) return null;
   return c.coef.slice(4 * i, 4 * i + 4);
 }
 
@@ -83,11 +86,11 @@ export function segmentDerivativeBound(
   let b = Math.min(t1, Math.max(ta, tb));
   if (a > b) a = b = Math.min(t1, Math.max(t0, ta));
   switch (c.kinds[i]) {
-    case KIND_STEP:
+    case 0 /* KIND_STEP */:
       return 0;
-    case KIND_LINEAR:
+    case 1 /* KIND_LINEAR */:
       return order === 1 ? Math.abs(c.coef[4 * i + 1]) : 0;
-    case KIND_HERMITE: {
+    case 2 /* KIND_HERMITE */: {
       const k = 4 * i;
       const q = c.coef;
       const ua = a - t0;
@@ -99,7 +102,7 @@ export function segmentDerivativeBound(
         default: return 0;
       }
     }
-    case KIND_BEZIER: {
+    case 3 /* KIND_BEZIER */: {
       const o = 6 * i;
       const bz = c.bez;
       const r = bezierEaseBound(bz[o], bz[o + 1], bz[o + 2], bz[o + 3], bz[o + 4], bz[o + 5], order, (a - t0) / h, (b - t0) / h);
