@@ -61,7 +61,7 @@ export function evaluate(c: PreparedCurve, t: number): number {
   return at(c, t, 0);
 }
 
-/** The first or second time derivative at t (value units per s, per s²); right-hand derivative at keys. */
+/** The first or second time derivative at t (value units per s, per s²); right-hand at keys, left-hand at the end. */
 export function evaluateDerivative(c: PreparedCurve, t: number, order: 1 | 2): number {
   return at(c, t, order);
 }
