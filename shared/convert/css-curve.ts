@@ -14,7 +14,7 @@
  *
  * From a curve: see `curveToCss` for exactly what can be written.
  */
-import type { CurveDocument, Key, Segment } from '../curve/types';
+import { prepareCurve, type CurveDocument, type Key, type Segment } from '../curve';
 import { type CssEasing, type LinearPoint, evaluateCssEasing, formatCssEasing, stepsEasing, type StepPosition } from './css-easing';
 
 function key(time: number, value: number, slopeIn: number, slopeOut: number): Key {
@@ -92,7 +92,7 @@ export type CurveToCssResult =
   | { ok: true; css: string; easing: CssEasing; notes: string[] }
   | { ok: false; reason: string };
 
-/** Resolved slopes of a key, in value units per second; defaults to the stored slopes. */
+/** Resolved slopes of the keys, value units per second; defaults to prepareCurve(doc)'s (slope rules applied). */
 export interface SlopeSource {
   slopesIn: ArrayLike<number>;
   slopesOut: ArrayLike<number>;
@@ -139,8 +139,9 @@ export function curveToCss(d: CurveDocument, slopes?: SlopeSource): CurveToCssRe
   const U = (t: number) => (t - t0) / h;
   const V = (v: number) => (normaliseValues && canNormalise ? (v - v0) / (v1 - v0) : v);
   const vScale = normaliseValues && canNormalise ? v1 - v0 : 1;
-  const slopeIn = (i: number) => (slopes ? slopes.slopesIn[i] : keys[i].slopeIn);
-  const slopeOut = (i: number) => (slopes ? slopes.slopesOut[i] : keys[i].slopeOut);
+  const resolved = slopes ?? prepareCurve(d);
+  const slopeIn = (i: number) => resolved.slopesIn[i];
+  const slopeOut = (i: number) => resolved.slopesOut[i];
   const kinds = d.segments.map((s) => s.kind);
 
   if (n === 2 && (kinds[0] === 'bezier' || kinds[0] === 'hermite' || kinds[0] === 'shape')) {
