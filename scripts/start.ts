@@ -40,6 +40,7 @@ async function main(): Promise<void> {
   if (!env.DATABASE_URL) {
     started.pg = await startEmbeddedPostgres({ dataDir: join(dataDir, 'postgres'), database: 'tangentry', port: Number(env.PG_PORT) || (await preferPort(54329)) });
     env.DATABASE_URL = started.pg.url();
+    env.TANGENTRY_EMBEDDED = 'true'; // demo accounts only on the embedded database (server/config.ts)
     console.log(`PostgreSQL (embedded) on 127.0.0.1:${started.pg.port}, data in .data/postgres`);
   }
   if (!env.S3_ENDPOINT) {
@@ -71,7 +72,7 @@ async function main(): Promise<void> {
     createBucket: true,
   });
   console.log(`\nTangentry is running at ${started.server.url}${dev ? ' (dev, hot reload)' : ''}`);
-  console.log(DEMO_PASSWORD_NOTE);
+  if (config.demoAccounts) console.log(DEMO_PASSWORD_NOTE);
   console.log('Press Ctrl-C to stop.');
 }
 

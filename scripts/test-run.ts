@@ -117,7 +117,7 @@ async function main(): Promise<number> {
         await admin.query(`CREATE DATABASE tangentry_e2e TEMPLATE ${TEMPLATE_DB}`);
         await admin.end();
         const port = await freePort();
-        const appEnv = { ...env, NODE_ENV: 'production', PORT: String(port), DATABASE_URL: pgServer.url('tangentry_e2e'), LOG_LEVEL: 'warn' };
+        const appEnv = { ...env, NODE_ENV: 'production', PORT: String(port), DATABASE_URL: pgServer.url('tangentry_e2e'), LOG_LEVEL: 'warn', TANGENTRY_EMBEDDED: 'true' };
         const app = spawn(bin('tsx'), ['server/main.ts'], { cwd: root, env: appEnv, stdio: ['ignore', 'inherit', 'inherit'] });
         try {
           await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000);

@@ -2,13 +2,30 @@ import { Router } from 'express';
 import type { AppContext } from './context';
 import { healthRoutes } from './health/health.routes';
 import { notFoundApi } from './http/error-middleware';
-import { schemasRoutes } from './schemas/schemas.routes';
+import { originCheck } from './auth/origin-check';
+import { authenticate } from './auth/authenticate';
+import { authRoutes } from './auth/auth.routes';
+import { teamRoutes } from './teams/teams.routes';
+import { invitationRoutes } from './invitations/invitations.routes';
+import { tokenRoutes } from './tokens/tokens.routes';
+import { outboxRoutes } from './outbox/outbox.routes';
 
-/** Every API resource under /api, one line each. The 404 for unknown API paths comes last. */
+/**
+ * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
+ * Mount each router without a path and give its routes their full paths under /api: the
+ * authorization matrix (tests/api/authorization-matrix.test.ts) walks this stack and fails on any
+ * route it does not list.
+ */
 export function apiRouter(ctx: AppContext): Router {
   const api = Router();
+  api.use(originCheck(ctx.config));
+  api.use(authenticate(ctx));
   api.use(healthRoutes(ctx));
-  api.use(schemasRoutes());
+  api.use(authRoutes(ctx));
+  api.use(teamRoutes(ctx));
+  api.use(invitationRoutes(ctx));
+  api.use(tokenRoutes(ctx));
+  api.use(outboxRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

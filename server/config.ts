@@ -35,6 +35,11 @@ export const envSchema = z.object({
   MAIL_CATCHER_DIR: z.string().min(1).optional(),
   SESSION_TTL_HOURS: z.coerce.number().min(1, 'must be at least 1 hour').max(24 * 90).default(24 * 14),
   SESSION_SECURE_COOKIE: bool.optional(),
+  /** Set by scripts/start.ts (and the test harness) when it started the embedded PostgreSQL: enables the demo accounts. */
+  TANGENTRY_EMBEDDED: bool.default(false),
+  /** Sign-in and password-reset attempts allowed per client address in AUTH_RATE_WINDOW_MINUTES. */
+  AUTH_RATE_LIMIT: z.coerce.number().int().min(1, 'must be at least 1').max(100_000).default(10),
+  AUTH_RATE_WINDOW_MINUTES: z.coerce.number().min(1, 'must be at least 1 minute').max(24 * 60).default(15),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -52,6 +57,9 @@ export interface Config {
   mailFrom: string;
   mailCatcherDir?: string;
   session: { ttlHours: number; secureCookie: boolean };
+  /** Demo accounts (<role>@corvid-lantern.test) are seeded and listed on the sign-in page: embedded default only. */
+  demoAccounts: boolean;
+  authRateLimit: { max: number; windowMs: number };
   logLevel: Env['LOG_LEVEL'];
 }
 
@@ -96,6 +104,8 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     mailCatcherDir: e.MAIL_CATCHER_DIR,
     session: { ttlHours: e.SESSION_TTL_HOURS, secureCookie: e.SESSION_SECURE_COOKIE ?? publicUrl.startsWith('https://') },
+    demoAccounts: e.TANGENTRY_EMBEDDED,
+    authRateLimit: { max: e.AUTH_RATE_LIMIT, windowMs: e.AUTH_RATE_WINDOW_MINUTES * 60_000 },
     logLevel: e.LOG_LEVEL,
   };
 }

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { S3Client } from '@aws-sdk/client-s3';
 import type { Transporter } from 'nodemailer';
 import type { Logger } from 'pino';
+import pg from 'pg';
 import type { Config } from './config';
 import { createSequelize } from './db/sequelize';
 import { initModels } from './models';
@@ -16,16 +17,21 @@ export interface AppContext {
   sequelize: Sequelize;
   s3: S3Client;
   mail: Transporter | null;
+  /** A small pg pool for lucia's session adapter (server/auth/lucia.ts). */
+  pgPool: pg.Pool;
 }
 
 export function createContext(config: Config, logger: Logger = createLogger(config.logLevel)): AppContext {
   const sequelize = createSequelize(config.databaseUrl, config.databasePoolMax);
   initModels(sequelize);
-  return { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config) };
+  const pgPool = new pg.Pool({ connectionString: config.databaseUrl, max: Math.max(2, Math.ceil(config.databasePoolMax / 2)), idleTimeoutMillis: 10_000 });
+  pgPool.on('error', (err) => logger.warn({ err: err.message }, 'idle session-pool connection failed'));
+  return { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config), pgPool };
 }
 
 export async function closeContext(ctx: AppContext): Promise<void> {
   ctx.mail?.close();
   ctx.s3.destroy();
   await ctx.sequelize.close();
+  await ctx.pgPool.end();
 }

@@ -5,12 +5,32 @@
 import type { Sequelize } from 'sequelize';
 import { Studio, initStudio } from './studio';
 import { Team, initTeam } from './team';
+import { User, initUser } from './user';
+import { Membership, initMembership } from './membership';
+import { Invitation, initInvitation } from './invitation';
+import { PasswordReset, initPasswordReset } from './password-reset';
+import { ServiceToken, initServiceToken } from './service-token';
 
 export { Studio, Team };
+export { User, Membership, Invitation, PasswordReset, ServiceToken };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
   initTeam(sequelize);
   Studio.hasMany(Team, { foreignKey: 'studioId', as: 'teams' });
   Team.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  // accounts (issue 3)
+  initUser(sequelize);
+  initMembership(sequelize);
+  initInvitation(sequelize);
+  initPasswordReset(sequelize);
+  initServiceToken(sequelize);
+  User.belongsTo(Studio, { foreignKey: 'studioId', as: 'studio' });
+  Membership.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
+  Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
+  Team.hasMany(Membership, { foreignKey: 'teamId', as: 'memberships' });
+  Invitation.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
+  PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+  ServiceToken.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
 }

@@ -4,7 +4,10 @@
  * into an empty database only; later features add their own demo rows here.
  */
 import type { AppContext } from '../context';
-import { Studio, Team } from '../models';
+import { Membership, Studio, Team, User } from '../models';
+import { hashPassword } from '../auth/password';
+import { newUserId } from '../auth/auth.service';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 
 export const DEMO_STUDIO = { name: 'Corvid Lantern Games', slug: 'corvid-lantern' };
 export const DEMO_TEAMS = [
@@ -14,10 +17,17 @@ export const DEMO_TEAMS = [
 
 /** Returns true when it seeded, false when the database already had a studio. */
 export async function seedDemoIfEmpty(ctx: AppContext): Promise<boolean> {
+  // demo accounts (embedded default only, config.demoAccounts): hashed before the transaction opens
+  const accountHashes = ctx.config.demoAccounts ? await Promise.all(DEMO_ACCOUNTS.map(() => hashPassword(DEMO_PASSWORD))) : [];
   return ctx.sequelize.transaction(async (transaction) => {
     if ((await Studio.count({ transaction })) > 0) return false;
     const studio = await Studio.create(DEMO_STUDIO, { transaction });
-    for (const team of DEMO_TEAMS) await Team.create({ ...team, studioId: studio.id }, { transaction });
+    const teamIds = new Map<string, string>();
+    for (const team of DEMO_TEAMS) teamIds.set(team.slug, (await Team.create({ ...team, studioId: studio.id }, { transaction })).id);
+    for (const [i, account] of accountHashes.length ? DEMO_ACCOUNTS.entries() : []) {
+      const user = await User.create({ id: newUserId(), email: account.email, name: account.name, passwordHash: accountHashes[i]!, studioId: studio.id }, { transaction });
+      for (const [slug, role] of Object.entries(account.teams)) await Membership.create({ teamId: teamIds.get(slug)!, userId: user.id, role }, { transaction });
+    }
     return true;
   });
 }

@@ -1,5 +1,6 @@
 import type { MigrationContext } from '../migrate';
 import * as m0001 from './0001-studios-and-teams';
+import * as m0002 from './0002-accounts';
 
 export interface Migration {
   name: string;
@@ -8,4 +9,7 @@ export interface Migration {
 }
 
 /** Every migration in order. Add new ones at the end; never edit one that has shipped. */
-export const migrations: Migration[] = [{ name: '0001-studios-and-teams', ...m0001 }];
+export const migrations: Migration[] = [
+  { name: '0001-studios-and-teams', ...m0001 },
+  { name: '0002-accounts', ...m0002 },
+];

@@ -1,0 +1,43 @@
+/**
+ * Read-only service tokens for build servers: create (the secret is shown once), list, revoke, and
+ * authenticate a presented `Authorization: Bearer tgt_…` (constant-time hash comparison, last use recorded).
+ */
+import { issueToken, parseToken, secretMatches } from '../auth/secret-token';
+import { notFound } from '../http/errors';
+import * as repo from './tokens.repository';
+
+export type { StoredToken } from './tokens.repository';
+
+export async function createToken(teamId: string, input: { name: string; packSlugs?: string[] }, createdBy: string) {
+  const issued = issueToken('tgt');
+  const packSlugs = input.packSlugs && input.packSlugs.length ? [...new Set(input.packSlugs)].sort() : null;
+  const token = await repo.insertToken({ id: issued.id, teamId, name: input.name, tokenHash: issued.hash, packSlugs, createdBy });
+  return { token, secret: issued.token };
+}
+
+export const listTokens = repo.listTokens;
+
+export async function revokeToken(teamId: string, id: string): Promise<void> {
+  if (!(await repo.revokeToken(teamId, id, new Date()))) throw notFound('No live service token with that id in this team.');
+}
+
+export type TokenCheck = { ok: true; token: repo.StoredToken } | { ok: false; message: string };
+
+/** Last use is written at most once a minute per token (a build farm can poll often). */
+const TOUCH_EVERY_MS = 60_000;
+
+export async function authenticateToken(presented: string): Promise<TokenCheck> {
+  const parsed = parseToken('tgt', presented);
+  if (!parsed) return { ok: false, message: 'The bearer token is not a Tangentry service token.' };
+  const found = await repo.findTokenWithHash(parsed.id);
+  // compare even when nothing was found, so timing does not reveal which ids exist
+  const matches = secretMatches(parsed.secret, found?.tokenHash ?? '0'.repeat(64));
+  if (!found || !matches) return { ok: false, message: 'The bearer token is not valid.' };
+  if (found.token.revokedAt) return { ok: false, message: 'This service token was revoked.' };
+  const now = new Date();
+  if (!found.token.lastUsedAt || now.getTime() - Date.parse(found.token.lastUsedAt) > TOUCH_EVERY_MS) {
+    await repo.touchToken(found.token.id, now);
+    found.token.lastUsedAt = now.toISOString();
+  }
+  return { ok: true, token: found.token };
+}
