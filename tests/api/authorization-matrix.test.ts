@@ -1,0 +1,171 @@
+/**
+ * AUTHORIZATION MATRIX — every API route, every kind of caller, the expected status.
+ *
+ * How it works: MATRIX below lists each route as "METHOD /api/path" (the Express path pattern) with
+ * a request builder and the status expected for: anonymous, each role (a member of "UI Motion" with
+ * that role), a revoked service token and a valid one (both of UI Motion), and `otherTeam` (an admin of
+ * "Gameplay Feel" only). Requests target UI Motion. The first test walks the real app's router stack
+ * (tests/support/route-walk.ts) and FAILS when the app has a route the matrix does not list, or the
+ * matrix lists one the app does not have.
+ *
+ * Extending it (every later issue must): add one entry per new route. Use the helpers: `adminOnly`,
+ * `forRoles` (pass the roles that succeed — read them from shared/schemas/roles.ts PERMISSIONS), `person`
+ * (any signed-in person), `everyone` (public). `fresh: true` when the request ends the caller's session.
+ * `build` may create what the request needs (a throwaway member to remove …) so every caller gets its own.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { randomBytes } from 'node:crypto';
+import { testApp } from '../support/app';
+import { ORIGIN, createPerson, signIn, teamId, uniqueEmail } from '../support/accounts';
+import { listRoutes } from '../support/route-walk';
+import { ROLES, type Role } from '../../shared/schemas/roles';
+import { createToken, revokeToken } from '../../server/tokens/tokens.service';
+import { insertInvitation } from '../../server/invitations/invitations.repository';
+
+const WHO = ['anonymous', ...ROLES, 'revokedToken', 'validToken', 'otherTeam'] as const;
+type Who = (typeof WHO)[number];
+type Expect = Record<Who, number>;
+
+interface Built {
+  url: string;
+  body?: unknown;
+}
+interface Entry {
+  route: string;
+  build: (env: Env) => Promise<Built> | Built;
+  expect: Expect;
+  fresh?: boolean;
+}
+interface Env {
+  team: string;
+  adminId: string;
+}
+
+const PASSWORD = 'matrix password 1';
+
+/** Status for anonymous 401, a revoked token 401, a valid token `token`, another team's admin `other`. */
+function grid(ok: number, roles: readonly Role[], opts: { denied?: number; token?: number; other?: number } = {}): Expect {
+  const e = { anonymous: 401, revokedToken: 401, validToken: opts.token ?? 403, otherTeam: opts.other ?? 404 } as Expect;
+  for (const r of ROLES) e[r] = roles.includes(r) ? ok : (opts.denied ?? 403);
+  return e;
+}
+const adminOnly = (ok: number) => grid(ok, ['admin']);
+const forRoles = (ok: number, roles: readonly Role[], opts?: { token?: number }) => grid(ok, roles, opts);
+/** Any signed-in person, whatever their team; tokens refused. */
+const person = (ok: number) => grid(ok, ROLES, { other: ok });
+/** Public: the same answer for everyone. */
+const everyone = (status: number) => Object.fromEntries(WHO.map((w) => [w, status])) as Expect;
+
+async function throwawayMember(): Promise<string> {
+  return createPerson({ email: uniqueEmail('target'), password: PASSWORD, teams: { 'ui-motion': 'viewer' } });
+}
+
+const MATRIX: Entry[] = [
+  { route: 'GET /api/health', build: () => ({ url: '/api/health' }), expect: everyone(200) },
+  { route: 'GET /api/auth/demo-accounts', build: () => ({ url: '/api/auth/demo-accounts' }), expect: everyone(200) },
+  { route: 'POST /api/auth/sign-in', build: () => ({ url: '/api/auth/sign-in', body: { email: 'nobody@corvid-lantern.test', password: 'wrong' } }), expect: everyone(401) },
+  { route: 'POST /api/auth/sign-out', build: () => ({ url: '/api/auth/sign-out' }), expect: person(204), fresh: true },
+  { route: 'POST /api/auth/sign-out-everywhere', build: () => ({ url: '/api/auth/sign-out-everywhere' }), expect: person(204), fresh: true },
+  { route: 'GET /api/auth/me', build: () => ({ url: '/api/auth/me' }), expect: person(200) },
+  { route: 'PATCH /api/auth/me', build: () => ({ url: '/api/auth/me', body: { name: 'Matrix Person' } }), expect: person(200) },
+  // a wrong current password: reaching 400 proves the guard let the person through, without changing anything
+  { route: 'POST /api/auth/password', build: () => ({ url: '/api/auth/password', body: { currentPassword: 'not it', newPassword: 'another long one' } }), expect: person(400) },
+  { route: 'POST /api/auth/password-reset', build: () => ({ url: '/api/auth/password-reset', body: { email: 'nobody@corvid-lantern.test' } }), expect: everyone(202) },
+  { route: 'POST /api/auth/password-reset/complete', build: () => ({ url: '/api/auth/password-reset/complete', body: { token: 'rst_not_a_real_token', password: 'a long new password' } }), expect: everyone(400) },
+  { route: 'GET /api/invitations/:token', build: () => ({ url: '/api/invitations/inv_not_a_real_token' }), expect: everyone(404) },
+  { route: 'POST /api/invitations/accept', build: () => ({ url: '/api/invitations/accept', body: { token: 'inv_not_a_real_token', name: 'X', password: 'a long new password' } }), expect: everyone(404) },
+  { route: 'GET /api/teams', build: () => ({ url: '/api/teams' }), expect: person(200) },
+  { route: 'GET /api/teams/:teamId', build: (e) => ({ url: `/api/teams/${e.team}` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/teams/:teamId/members', build: (e) => ({ url: `/api/teams/${e.team}/members` }), expect: forRoles(200, ROLES) },
+  {
+    route: 'PATCH /api/teams/:teamId/members/:userId',
+    build: async (e) => ({ url: `/api/teams/${e.team}/members/${await throwawayMember()}`, body: { role: 'animator' } }),
+    expect: adminOnly(204),
+  },
+  { route: 'DELETE /api/teams/:teamId/members/:userId', build: async (e) => ({ url: `/api/teams/${e.team}/members/${await throwawayMember()}` }), expect: adminOnly(204) },
+  { route: 'GET /api/teams/:teamId/invitations', build: (e) => ({ url: `/api/teams/${e.team}/invitations` }), expect: adminOnly(200) },
+  { route: 'POST /api/teams/:teamId/invitations', build: (e) => ({ url: `/api/teams/${e.team}/invitations`, body: { email: uniqueEmail('matrix-invite'), role: 'viewer' } }), expect: adminOnly(201) },
+  {
+    route: 'DELETE /api/teams/:teamId/invitations/:invitationId',
+    build: async (e) => {
+      const inv = await insertInvitation({ id: crypto.randomUUID(), teamId: e.team, email: uniqueEmail('matrix-withdraw'), role: 'viewer', tokenHash: randomBytes(32).toString('hex'), invitedBy: e.adminId, expiresAt: new Date(Date.now() + 86_400_000) });
+      return { url: `/api/teams/${e.team}/invitations/${inv.id}` };
+    },
+    expect: adminOnly(204),
+  },
+  { route: 'GET /api/teams/:teamId/tokens', build: (e) => ({ url: `/api/teams/${e.team}/tokens` }), expect: adminOnly(200) },
+  { route: 'POST /api/teams/:teamId/tokens', build: (e) => ({ url: `/api/teams/${e.team}/tokens`, body: { name: 'matrix token' } }), expect: adminOnly(201) },
+  {
+    route: 'DELETE /api/teams/:teamId/tokens/:tokenId',
+    build: async (e) => ({ url: `/api/teams/${e.team}/tokens/${(await createToken(e.team, { name: 'to revoke' }, e.adminId)).token.id}` }),
+    expect: adminOnly(204),
+  },
+  // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
+  { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },
+];
+
+describe('authorization matrix', () => {
+  let t: Awaited<ReturnType<typeof testApp>>;
+  const emails = {} as Record<Exclude<Who, 'anonymous' | 'revokedToken' | 'validToken'>, string>;
+  const cookies = new Map<Who, string>();
+  let env: Env;
+  let validToken = '';
+  let revokedToken = '';
+
+  beforeAll(async () => {
+    t = await testApp({ label: 'matrix', seed: true, env: { AUTH_RATE_LIMIT: '100000' } });
+    const team = await teamId('ui-motion');
+    let adminId = '';
+    for (const role of ROLES) {
+      emails[role] = uniqueEmail(`matrix-${role}`);
+      const id = await createPerson({ email: emails[role], password: PASSWORD, teams: { 'ui-motion': role } });
+      if (role === 'admin') adminId = id;
+    }
+    emails.otherTeam = uniqueEmail('matrix-other');
+    await createPerson({ email: emails.otherTeam, password: PASSWORD, teams: { 'gameplay-feel': 'admin' } });
+    env = { team, adminId };
+    validToken = (await createToken(team, { name: 'matrix valid' }, adminId)).secret;
+    const revoked = await createToken(team, { name: 'matrix revoked' }, adminId);
+    await revokeToken(team, revoked.token.id);
+    revokedToken = revoked.secret;
+  });
+  afterAll(async () => t?.close());
+
+  it('lists every route of the app, and only those', () => {
+    const inApp = listRoutes(t.app).filter((r) => r.split(' ')[1]!.startsWith('/api/')).sort();
+    const inMatrix = MATRIX.map((e) => e.route).sort();
+    expect(inApp.filter((r) => !inMatrix.includes(r)), 'routes the matrix does not list: add them to MATRIX').toEqual([]);
+    expect(inMatrix.filter((r) => !inApp.includes(r)), 'matrix entries with no route in the app').toEqual([]);
+    expect(new Set(inMatrix).size).toBe(inMatrix.length);
+  });
+
+  async function cookieFor(who: Who, fresh: boolean): Promise<string> {
+    if (!fresh && cookies.has(who)) return cookies.get(who)!;
+    const c = await signIn(t.app, emails[who as keyof typeof emails], PASSWORD);
+    if (!fresh) cookies.set(who, c);
+    return c;
+  }
+
+  for (const entry of MATRIX) {
+    it(entry.route, async () => {
+      const [method] = entry.route.split(' ') as [string];
+      const got = {} as Expect;
+      for (const who of WHO) {
+        const built = await entry.build(env);
+        let req = request(t.app)[method.toLowerCase() as 'get'](built.url);
+        if (who === 'validToken') req = req.set('Authorization', `Bearer ${validToken}`);
+        else if (who === 'revokedToken') req = req.set('Authorization', `Bearer ${revokedToken}`);
+        else {
+          req = req.set('Origin', ORIGIN);
+          if (who !== 'anonymous') req = req.set('Cookie', await cookieFor(who, entry.fresh === true));
+        }
+        const res = built.body === undefined ? await req : await req.send(built.body as object);
+        got[who] = res.status;
+      }
+      // sign-out-everywhere ends the cached sessions too
+      if (entry.fresh) cookies.clear();
+      expect(got).toEqual(entry.expect);
+    });
+  }
+});
