@@ -10,7 +10,9 @@
  *   difference that only shows for inputs outside [0,1].
  * - linear(...) → `linear` segments through the canonical control points; points sharing an
  *   input become a jump (only the first and last of such a run are reachable, per Level 2's
- *   evaluation); `extend` outside with the end segments' secant slopes, as linear() extrapolates.
+ *   evaluation); `extend` outside with the end segments' secant slopes, as linear() extrapolates
+ *   (`clamp` after a jump at the end: linear() is constant there; a jump at the start is dropped,
+ *   its first point is never the output).
  *
  * From a curve: see `curveToCss` for exactly what can be written.
  */
@@ -59,6 +61,11 @@ export function cssToCurve(e: CssEasing, name = formatCssEasing(e)): CurveDocume
     return doc(name, keys, keys.slice(1).map(() => ({ kind: 'step' as const })), 'clamp');
   }
   const pts = collapseRuns(e.points);
+  // Level 2 evaluation never returns the first point's output when the second shares its input
+  // (for x below it, and at it, the later point wins), so that point is dropped.
+  // Before it linear() is constant at that later output: `clamp`.
+  const jumpAtStart = pts.length > 2 && pts[0].input === pts[1].input;
+  if (jumpAtStart) pts.shift();
   const keys = pts.map((p) => key(p.input, p.output, 0, 0));
   const segments: Segment[] = [];
   for (let i = 0; i + 1 < keys.length; i++) {
@@ -72,7 +79,12 @@ export function cssToCurve(e: CssEasing, name = formatCssEasing(e)): CurveDocume
     segments.push({ kind: 'linear' });
   }
   for (const k of keys) k.slopes = k.slopeIn === k.slopeOut ? 'joined' : 'split';
-  return doc(name, keys, segments, 'extend');
+  const d = doc(name, keys, segments, 'extend');
+  // Level 2: where the last two points share an input, linear() is constant after them at the last
+  // point's output, which is what `clamp` gives.
+  if (jumpAtStart) d.before = 'clamp';
+  if (keys.length > 1 && keys[keys.length - 1].time === keys[keys.length - 2].time) d.after = 'clamp';
+  return d;
 }
 
 /** Keep only the first and the last point of each run sharing one input (the others are never reached). */

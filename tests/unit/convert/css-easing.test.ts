@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import BezierEasing from 'bezier-easing';
 import { parseCssEasing, evaluateCssEasing, formatCssEasing, type CssEasing } from '../../../shared/convert/css-easing';
 import { cssToCurve, curveToCss } from '../../../shared/convert/css-curve';
+import { evaluate, parseCurveDocument, prepareCurve } from '../../../shared/curve';
 
 function parse(s: string): CssEasing {
   const r = parseCssEasing(s);
@@ -164,6 +165,26 @@ describe('CSS easing ⇄ curve document', () => {
       for (let j = 0; j <= 200; j++) {
         const x = j / 200;
         expect(value(x), `${src} at ${x}`).toBeCloseTo(evaluateCssEasing(e, x), 12);
+      }
+    }
+  });
+
+  it('the curve engine evaluates converted documents as the CSS specification does, also outside [0,1]', () => {
+    // Expected values: the W3C algorithms (evaluateCssEasing, checked above against the spec values);
+    // steps() is compared on [0,1] only: outside it the document clamps while CSS keeps stepping (documented).
+    const cases = ['ease', 'ease-in', 'ease-out', 'ease-in-out', 'cubic-bezier(0.68, -0.55, 0.265, 1.55)',
+      'cubic-bezier(0, 1.4, 1, -0.4)', 'linear(0, 0.25 75%, 1)', 'linear(0, 0.5 25% 75%, 1)', 'linear(0 0%, 1 0%, 0.5)',
+      'linear(0, 0.5 100%, 1 100%)', 'linear(0, 0.3 50%, 0.6 50%, 0.9 50%, 1)', 'steps(4, jump-both)', 'steps(3, jump-none)', 'step-start'];
+    for (const src of cases) {
+      const e = parse(src);
+      const d = cssToCurve(e);
+      expect(parseCurveDocument(d).ok, src).toBe(true);
+      const c = prepareCurve(d);
+      const lo = e.kind === 'steps' ? 0 : -500;
+      const hi = e.kind === 'steps' ? 1000 : 1500;
+      for (let i = lo; i <= hi; i++) {
+        const x = i / 1000;
+        expect(Math.abs(evaluate(c, x) - evaluateCssEasing(e, x)), `${src} at ${x}`).toBeLessThan(1e-13);
       }
     }
   });
