@@ -3,6 +3,13 @@ import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-rou
 import { HomePage } from '../pages/home-page';
 import { NotFoundPage } from '../pages/not-found-page';
 import { SignInPage } from '../pages/sign-in-page';
+import { AcceptInvitationPage } from '../pages/accept-invitation-page';
+import { ForgotPasswordPage } from '../pages/forgot-password-page';
+import { ResetPasswordPage } from '../pages/reset-password-page';
+import { ProfilePage } from '../pages/profile-page';
+import { TeamPage } from '../pages/team-page';
+import { TokensPage } from '../pages/tokens-page';
+import { OutboxPage } from '../pages/outbox-page';
 import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
 import { AppLayout } from './layout/app-layout';
 
@@ -20,6 +27,13 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, element: <HomePage /> },
           { path: 'sign-in', element: <SignInPage /> },
+          { path: 'invite/:token', element: <AcceptInvitationPage /> },
+          { path: 'forgot-password', element: <ForgotPasswordPage /> },
+          { path: 'reset-password/:token', element: <ResetPasswordPage /> },
+          { path: 'profile', element: <ProfilePage /> },
+          { path: 'team', element: <TeamPage /> },
+          { path: 'team/tokens', element: <TokensPage /> },
+          { path: 'outbox', element: <OutboxPage /> },
           { path: '*', element: <NotFoundPage /> },
         ],
       },

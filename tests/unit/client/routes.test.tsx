@@ -20,16 +20,15 @@ describe('routes', () => {
     expect(screen.getByRole('banner')).toBeTruthy();
   });
 
-  it('renders the sign-in placeholder with labelled, disabled fields that say why', () => {
+  it('renders the sign-in form with labelled fields, enabled', () => {
     renderApp('/sign-in');
     expect(screen.getByRole('heading', { level: 1, name: 'Sign in' })).toBeTruthy();
     const email = screen.getByLabelText('Email') as HTMLInputElement;
     const password = screen.getByLabelText('Password') as HTMLInputElement;
     expect(email.type).toBe('email');
     expect(password.type).toBe('password');
-    expect(email.matches(':disabled')).toBe(true);
-    expect(password.matches(':disabled')).toBe(true);
-    expect(screen.getByText(/Sign-in arrives with accounts/)).toBeTruthy();
+    expect(email.matches(':disabled')).toBe(false);
+    expect(screen.getByRole('link', { name: 'Forgot your password?' }).getAttribute('href')).toBe('/forgot-password');
   });
 });
 
