@@ -9,6 +9,8 @@ import { teamRoutes } from './teams/teams.routes';
 import { invitationRoutes } from './invitations/invitations.routes';
 import { tokenRoutes } from './tokens/tokens.routes';
 import { outboxRoutes } from './outbox/outbox.routes';
+import { schemasRoutes } from './schemas/schemas.routes';
+import { profileRoutes } from './profiles/profiles.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -26,6 +28,8 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(invitationRoutes(ctx));
   api.use(tokenRoutes(ctx));
   api.use(outboxRoutes(ctx));
+  api.use(schemasRoutes());
+  api.use(profileRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

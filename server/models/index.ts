@@ -10,9 +10,11 @@ import { Membership, initMembership } from './membership';
 import { Invitation, initInvitation } from './invitation';
 import { PasswordReset, initPasswordReset } from './password-reset';
 import { ServiceToken, initServiceToken } from './service-token';
+import { TargetProfile, initTargetProfile } from './target-profile';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
+export { TargetProfile };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -33,4 +35,7 @@ export function initModels(sequelize: Sequelize): void {
   Invitation.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
   PasswordReset.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   ServiceToken.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
+  // target profiles (issue 5)
+  initTargetProfile(sequelize);
+  TargetProfile.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
 }

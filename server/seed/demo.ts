@@ -4,10 +4,11 @@
  * into an empty database only; later features add their own demo rows here.
  */
 import type { AppContext } from '../context';
-import { Membership, Studio, Team, User } from '../models';
+import { Membership, Studio, TargetProfile, Team, User } from '../models';
 import { hashPassword } from '../auth/password';
 import { newUserId } from '../auth/auth.service';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { DEMO_PROFILES } from '../../shared/bake/profile';
 
 export const DEMO_STUDIO = { name: 'Corvid Lantern Games', slug: 'corvid-lantern' };
 export const DEMO_TEAMS = [
@@ -24,6 +25,10 @@ export async function seedDemoIfEmpty(ctx: AppContext): Promise<boolean> {
     const studio = await Studio.create(DEMO_STUDIO, { transaction });
     const teamIds = new Map<string, string>();
     for (const team of DEMO_TEAMS) teamIds.set(team.slug, (await Team.create({ ...team, studioId: studio.id }, { transaction })).id);
+    // the brief's four targets (Console, Handheld, Mobile, Web) in every team
+    for (const teamId of teamIds.values()) {
+      for (const [position, spec] of DEMO_PROFILES.entries()) await TargetProfile.create({ teamId, name: spec.name, spec, position }, { transaction });
+    }
     for (const [i, account] of accountHashes.length ? DEMO_ACCOUNTS.entries() : []) {
       const user = await User.create({ id: newUserId(), email: account.email, name: account.name, passwordHash: accountHashes[i]!, studioId: studio.id }, { transaction });
       for (const [slug, role] of Object.entries(account.teams)) await Membership.create({ teamId: teamIds.get(slug)!, userId: user.id, role }, { transaction });

@@ -22,6 +22,9 @@ import { listRoutes } from '../support/route-walk';
 import { ROLES, type Role } from '../../shared/schemas/roles';
 import { createToken, revokeToken } from '../../server/tokens/tokens.service';
 import { insertInvitation } from '../../server/invitations/invitations.repository';
+import { createProfile } from '../../server/profiles/profiles.service';
+
+const matrixProfile = () => ({ tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
 
 const WHO = ['anonymous', ...ROLES, 'revokedToken', 'validToken', 'otherTeam'] as const;
 type Who = (typeof WHO)[number];
@@ -100,6 +103,28 @@ const MATRIX: Entry[] = [
     route: 'DELETE /api/teams/:teamId/tokens/:tokenId',
     build: async (e) => ({ url: `/api/teams/${e.team}/tokens/${(await createToken(e.team, { name: 'to revoke' }, e.adminId)).token.id}` }),
     expect: adminOnly(204),
+  },
+  // public formats
+  { route: 'GET /api/schemas/curve.schema.json', build: () => ({ url: '/api/schemas/curve.schema.json' }), expect: everyone(200) },
+  // target profiles (issue 5): members and the team's tokens read; engineers and admins edit
+  { route: 'GET /api/teams/:teamId/profiles', build: (e) => ({ url: `/api/teams/${e.team}/profiles` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  {
+    route: 'POST /api/teams/:teamId/profiles',
+    build: (e) => ({ url: `/api/teams/${e.team}/profiles`, body: { ...matrixProfile(), name: `Matrix ${randomBytes(4).toString('hex')}` } }),
+    expect: forRoles(201, ['admin', 'engineer']),
+  },
+  {
+    route: 'PUT /api/teams/:teamId/profiles/:profileId',
+    build: async (e) => {
+      const p = await createProfile(e.team, { ...matrixProfile(), name: `Matrix ${randomBytes(4).toString('hex')}` });
+      return { url: `/api/teams/${e.team}/profiles/${p.id}`, body: { profile: { ...p.profile, tolerance: { mode: 'absolute', value: 1e-3 } }, version: p.version } };
+    },
+    expect: forRoles(200, ['admin', 'engineer']),
+  },
+  {
+    route: 'DELETE /api/teams/:teamId/profiles/:profileId',
+    build: async (e) => ({ url: `/api/teams/${e.team}/profiles/${(await createProfile(e.team, { ...matrixProfile(), name: `Matrix ${randomBytes(4).toString('hex')}` })).id}` }),
+    expect: forRoles(204, ['admin', 'engineer']),
   },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },

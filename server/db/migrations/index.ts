@@ -1,6 +1,7 @@
 import type { MigrationContext } from '../migrate';
 import * as m0001 from './0001-studios-and-teams';
 import * as m0002 from './0002-accounts';
+import * as m0003 from './0003-target-profiles';
 
 export interface Migration {
   name: string;
@@ -12,4 +13,5 @@ export interface Migration {
 export const migrations: Migration[] = [
   { name: '0001-studios-and-teams', ...m0001 },
   { name: '0002-accounts', ...m0002 },
+  { name: '0003-target-profiles', ...m0003 },
 ];
