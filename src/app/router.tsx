@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { EditorPage } from '../pages/editor-page';
 import { HomePage } from '../pages/home-page';
 import { NotFoundPage } from '../pages/not-found-page';
 import { SignInPage } from '../pages/sign-in-page';
@@ -34,6 +35,7 @@ export const routes: RouteObject[] = [
           { path: 'team', element: <TeamPage /> },
           { path: 'team/tokens', element: <TokensPage /> },
           { path: 'outbox', element: <OutboxPage /> },
+          { path: 'editor', element: <EditorPage /> },
           { path: '*', element: <NotFoundPage /> },
         ],
       },

@@ -3,7 +3,10 @@ import { TangentryMark } from '../../components/tangentry-mark';
 import { TopBarAccountSlot } from './top-bar-account-slot';
 
 /** Sections of the product; Library, Profiles and the rest join this list as they arrive. */
-const NAV_ITEMS: readonly { to: string; label: string; end?: boolean }[] = [{ to: '/', label: 'Home', end: true }];
+const NAV_ITEMS: readonly { to: string; label: string; end?: boolean }[] = [
+  { to: '/', label: 'Home', end: true },
+  { to: '/editor', label: 'Editor' },
+];
 
 export function TopBar() {
   return (

@@ -1,0 +1,132 @@
+import { test, expect, type Page } from '@playwright/test';
+
+// The scratch curve editor at /editor (issue 6): direct manipulation with the mouse, the key card,
+// the target strip, keyboard nudging, undo, the browser-local document surviving a reload, and
+// the WCAG 2.3.1 flash caution on the demo studio's muzzle-flash brightness curve.
+// Screenshots go to .tmp/ beside the other e2e artifacts.
+
+const SHOTS = `${import.meta.dirname}/../.tmp`;
+
+async function openFresh(page: Page) {
+  await page.goto('/editor');
+  await page.evaluate(() => localStorage.clear());
+  await page.reload();
+  await expect(page.getByTestId('curve-canvas')).toBeVisible();
+  // every demo target has baked once
+  for (const name of ['Console', 'Handheld', 'Mobile', 'Web']) {
+    await expect(page.getByTestId(`target-${name}`)).not.toHaveAttribute('aria-busy', 'true');
+  }
+}
+
+async function centre(page: Page, testId: string) {
+  const box = await page.getByTestId(testId).locator('circle').last().boundingBox();
+  if (!box) throw new Error(`${testId} has no box`);
+  return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+}
+
+async function drag(page: Page, from: { x: number; y: number }, to: { x: number; y: number }) {
+  await page.mouse.move(from.x, from.y);
+  await page.mouse.down();
+  for (let i = 1; i <= 8; i++) await page.mouse.move(from.x + ((to.x - from.x) * i) / 8, from.y + ((to.y - from.y) * i) / 8);
+  await page.mouse.up();
+}
+
+test('drag a key: the key card and the target strip follow; undo returns; a reload keeps the edit', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 1000 });
+  await openFresh(page);
+  const before = await page.getByTestId('error-Console').textContent();
+  const key = await centre(page, 'key-1');
+  // the middle key of panel-slide-in sits at (0.3 s, 1.06); drag it left and down
+  await drag(page, key, { x: key.x - 120, y: key.y + 90 });
+  const card = page.getByTestId('key-card');
+  await expect(card).toBeVisible();
+  const time = Number(await page.getByTestId('card-time').inputValue());
+  const value = Number(await page.getByTestId('card-value').inputValue());
+  expect(time).toBeLessThan(0.3);
+  expect(value).toBeLessThan(1.06);
+  // frame snapping is on: the dragged time is a whole frame at 60 fps
+  expect(Math.abs(time * 60 - Math.round(time * 60))).toBeLessThan(1e-6);
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName(new RegExp(`^Key 2, time ${time} s, value ${value} progress$`));
+  await expect(page.getByTestId('target-Console')).not.toHaveAttribute('aria-busy', 'true');
+  await expect(page.getByTestId('error-Console')).not.toHaveText(before ?? '');
+  await page.screenshot({ path: `${SHOTS}/editor-drag.png` });
+
+  // undo is one step for the whole drag
+  await page.keyboard.press('Control+z');
+  await expect(page.getByTestId('card-time')).toHaveValue('0.3');
+  await expect(page.getByTestId('card-value')).toHaveValue('1.06');
+  await page.keyboard.press('Control+Shift+z');
+  await expect(page.getByTestId('card-time')).toHaveValue(String(time));
+
+  // kept in this browser: a reload shows the edited key
+  await expect(page.getByTestId('save-status')).toHaveText(/kept at/);
+  await page.reload();
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName(new RegExp(`time ${time} s, value ${value} progress`));
+});
+
+test('drag a slope handle: the key turns manual and its slopes change together', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 1000 });
+  await openFresh(page);
+  await page.getByTestId('key-1').click();
+  await expect(page.getByTestId('card-rule')).toHaveValue('zero');
+  const h = await page.getByTestId('handle-1-in').locator('rect').last().boundingBox();
+  expect(h).not.toBeNull();
+  const from = { x: h!.x + h!.width / 2, y: h!.y + h!.height / 2 };
+  // pull the in-handle down: the slope arriving at the key becomes positive (rising into the key)
+  await drag(page, from, { x: from.x, y: from.y + 40 });
+  await expect(page.getByTestId('card-rule')).toHaveValue('manual');
+  const slopeIn = Number(await page.getByTestId('card-slope-in').inputValue());
+  const slopeOut = Number(await page.getByTestId('card-slope-out').inputValue());
+  expect(slopeIn).toBeGreaterThan(0);
+  expect(slopeOut).toBe(slopeIn); // joined: both sides turn together
+  await page.screenshot({ path: `${SHOTS}/editor-handle.png` });
+});
+
+test('keyboard: keys are focusable with names, arrows nudge by a frame and a value step, Delete removes, the help sheet lists shortcuts', async ({ page }) => {
+  await openFresh(page);
+  const k = page.getByTestId('key-1');
+  await k.focus();
+  await expect(k).toHaveAccessibleName('Key 2, time 0.3 s, value 1.06 progress');
+  await page.keyboard.press('ArrowRight');
+  await expect(k).toHaveAccessibleName(`Key 2, time ${+(0.3 + 1 / 60).toFixed(4)} s, value 1.06 progress`);
+  await page.keyboard.press('ArrowUp');
+  // value step of a 0…1.06 curve is 0.01 (see store/snap.ts)
+  await expect(k).toHaveAccessibleName(`Key 2, time ${+(0.3 + 1 / 60).toFixed(4)} s, value 1.07 progress`);
+  await page.keyboard.press('Control+z');
+  await expect(k).toHaveAccessibleName(`Key 2, time ${+(0.3 + 1 / 60).toFixed(4)} s, value 1.06 progress`);
+  await page.keyboard.press('Delete');
+  await expect(page.getByTestId('key-2')).toHaveCount(0);
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName(/^Key 2, time 0\.45 s/);
+  await page.keyboard.press('?');
+  const sheet = page.getByTestId('help-sheet');
+  await expect(sheet).toBeVisible();
+  await expect(sheet).toContainText('Undo');
+  await expect(sheet).toContainText('Ctrl+Shift+Z');
+  await expect(sheet).toContainText('One frame later');
+  await page.screenshot({ path: `${SHOTS}/editor-help.png` });
+});
+
+test('the muzzle-flash brightness example shows the WCAG 2.3.1 flash caution and does not play by itself', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 1000 });
+  await openFresh(page);
+  await expect(page.getByTestId('flash-caution')).toHaveCount(0);
+  await page.getByTestId('example-menu').selectOption('hit-flashes/muzzle-flash');
+  const caution = page.getByTestId('flash-caution');
+  await expect(caution).toBeVisible();
+  await expect(caution).toContainText('WCAG 2.3.1');
+  await expect(caution).toContainText('8 times within one second');
+  await expect(page.getByTestId('preview-play')).toHaveText('Play');
+  // the table overlay: dots at the entries and the band of the error envelope
+  await page.getByTestId('target-Console').getByRole('button', { name: 'show on canvas' }).click();
+  await expect(page.getByTestId('table-overlay')).toBeVisible();
+  await page.screenshot({ path: `${SHOTS}/editor-flash.png` });
+});
+
+test('reduced motion: the preview waits for Play', async ({ browser }) => {
+  const ctx = await browser.newContext({ reducedMotion: 'reduce' });
+  const page = await ctx.newPage();
+  await openFresh(page);
+  await expect(page.getByText('Reduced motion is on')).toBeVisible();
+  await expect(page.getByTestId('preview-play')).toHaveText('Play');
+  await ctx.close();
+});

@@ -1,0 +1,201 @@
+/**
+ * The editor, laid out as the brief asks: the canvas across the page, the target strip under it with
+ * the motion preview at its right end, the key card floating next to the selected key.
+ * The document comes from an EditorDocumentSource and is saved back to it (debounced, never mid-drag).
+ */
+import { useEffect, useMemo, useRef, useState } from 'react';
+import type { Profile } from '../../../../shared/bake';
+import type { CurveDocument } from '../../../../shared/curve';
+import { CurveCanvas, type OverlayData } from '../canvas/curve-canvas';
+import { toX, toY } from '../canvas/transform';
+import { commandForKey } from '../commands/commands';
+import { KeyCard } from '../key-card/key-card';
+import { MotionPreview } from '../motion-preview/motion-preview';
+import type { EditorDocumentSource } from '../store/document-source';
+import { EditorProvider, useEditor, useEditorApi } from '../store/editor-context';
+import { createEditorStore, type EditorStoreApi } from '../store/editor-store';
+import { EDITOR_EXAMPLES } from '../store/examples';
+import { fitView } from '../store/view';
+import { createBakeRunner, type BakeRunner } from '../target-strip/bake-runner';
+import { TargetStrip } from '../target-strip/target-strip';
+import { useStore } from 'zustand';
+import { HelpSheet } from './help-sheet';
+import { Toolbar } from './toolbar';
+
+const CARD_W = 288;
+const SAVE_DELAY_MS = 250;
+
+function isField(t: EventTarget | null): boolean {
+  const el = t as HTMLElement | null;
+  return !!el && (el.tagName === 'INPUT' || el.tagName === 'SELECT' || el.tagName === 'TEXTAREA' || el.isContentEditable);
+}
+
+/** Shortcuts: one handler over the command list, ignored while typing in a field. */
+function useShortcuts(api: EditorStoreApi, root: React.RefObject<HTMLDivElement | null>) {
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (isField(e.target) || e.defaultPrevented) return;
+      // inside the editor, or nowhere in particular (the page body)
+      const inside = root.current?.contains(e.target as Node) || e.target === document.body;
+      if (!inside) return;
+      const c = commandForKey(api, e);
+      if (!c) return;
+      e.preventDefault();
+      c.run(api);
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [api, root]);
+}
+
+/** Save the document to its source after edits settle; report conflicts. */
+function useAutosave(api: EditorStoreApi, source: EditorDocumentSource, initialVersion: number | null) {
+  const version = useRef(initialVersion);
+  const [status, setStatus] = useState<{ kind: 'saved' | 'saving' | 'error'; at?: Date; message?: string } | { kind: 'conflict'; theirs: CurveDocument; version: number }>({ kind: 'saved' });
+  useEffect(() => {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    let lastSaved = api.getState().doc;
+    const unsub = api.subscribe((s) => {
+      if (s.drag || s.doc === lastSaved) return;
+      clearTimeout(timer);
+      timer = setTimeout(async () => {
+        const doc = api.getState().doc;
+        if (api.getState().drag) return;
+        setStatus({ kind: 'saving' });
+        try {
+          const r = await source.save(doc, version.current);
+          if (r.ok) { version.current = r.version; lastSaved = doc; setStatus({ kind: 'saved', at: new Date() }); }
+          else setStatus({ kind: 'conflict', theirs: r.conflict.doc, version: r.conflict.version });
+        } catch (e) {
+          setStatus({ kind: 'error', message: (e as Error).message });
+        }
+      }, SAVE_DELAY_MS);
+    });
+    return () => { unsub(); clearTimeout(timer); };
+  }, [api, source]);
+  return {
+    status,
+    async keepMine() {
+      const r = await source.overwrite(api.getState().doc);
+      version.current = r.version;
+      setStatus({ kind: 'saved', at: new Date() });
+    },
+    takeTheirs(doc: CurveDocument, v: number) {
+      version.current = v;
+      api.getState().load(doc);
+      setStatus({ kind: 'saved', at: new Date() });
+    },
+  };
+}
+
+function ExampleMenu() {
+  const api = useEditorApi();
+  return (
+    <label className="flex items-center gap-1.5 text-xs">
+      <span>Open example</span>
+      <select data-testid="example-menu" value="" className="rounded-sm border border-grid-major bg-card px-1 py-0.5 dark:border-night-line dark:bg-night-card"
+        onChange={(e) => {
+          const ex = EDITOR_EXAMPLES.find((x) => x.id === e.target.value);
+          if (!ex) return;
+          // an undoable replacement: Undo brings the previous curve back
+          api.getState().edit(() => ex.doc, [], null);
+          api.getState().setView(fitView(ex.doc));
+          api.getState().setPlayhead(ex.doc.keys[0].time);
+          api.getState().setPlaying(false);
+        }}>
+        <option value="">choose…</option>
+        {EDITOR_EXAMPLES.map((x) => <option key={x.id} value={x.id}>{x.id} — {x.title}</option>)}
+      </select>
+    </label>
+  );
+}
+
+function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }: {
+  source: EditorDocumentSource; runner: BakeRunner; profiles: readonly Profile[]; profilesLabel: string; initialVersion: number | null;
+}) {
+  const api = useEditorApi();
+  const root = useRef<HTMLDivElement>(null);
+  useShortcuts(api, root);
+  const save = useAutosave(api, source, initialVersion);
+  const doc = useEditor((s) => s.doc);
+  const primary = useEditor((s) => s.primary);
+  const overlayName = useEditor((s) => s.overlay);
+  const results = useStore(runner.store, (s) => s.results);
+  const overlay: OverlayData | null = useMemo(() => {
+    const r = overlayName ? results[overlayName] : undefined;
+    return r && r.ok ? { name: r.profile, tolerance: r.tolerance, dotTimes: r.dotTimes, dotValues: r.dotValues } : null;
+  }, [overlayName, results]);
+  const st = save.status;
+  return (
+    <div ref={root} className="grid gap-3" data-testid="curve-editor">
+      <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
+        <h1 className="text-xl font-semibold tracking-tight">
+          {source.label}: <span className="font-mono text-lg">{doc.name}</span>
+        </h1>
+        <p className="text-sm text-ink/70 dark:text-paper/70">{source.description}</p>
+        <p className="text-xs text-ink/60 dark:text-paper/60" aria-live="polite" data-testid="save-status">
+          {st.kind === 'saving' ? 'keeping…' : st.kind === 'saved' ? (st.at ? `kept at ${st.at.toLocaleTimeString()}` : 'kept in this browser') : st.kind === 'error' ? `not kept: ${st.message}` : ''}
+        </p>
+        <div className="ml-auto"><ExampleMenu /></div>
+      </header>
+      {st.kind === 'conflict' && (
+        <div role="alert" className="flex flex-wrap items-center gap-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">
+          <span>Another tab changed this scratch curve since you opened it.</span>
+          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => save.takeTheirs(st.theirs, st.version)}>Load the other tab's curve</button>
+          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => void save.keepMine()}>Keep mine (overwrite)</button>
+        </div>
+      )}
+      <Toolbar />
+      <CurveCanvas overlay={overlay}>
+        {(tf, width) => {
+          if (primary === null || primary >= doc.keys.length) return null;
+          const k = doc.keys[primary];
+          const x = toX(tf, k.time), y = toY(tf, k.value);
+          if (x < tf.plot.x - 10 || x > tf.plot.x + tf.plot.w + 10) return null;
+          const left = x + 24 + CARD_W < width ? x + 24 : Math.max(0, x - 24 - CARD_W);
+          const top = Math.max(4, Math.min(y - 40, tf.plot.y + tf.plot.h - 250));
+          return <KeyCard position={{ left, top }} />;
+        }}
+      </CurveCanvas>
+      <div className="flex flex-col gap-3 lg:flex-row lg:items-start">
+        <TargetStrip runner={runner} profiles={profiles} profilesLabel={profilesLabel} />
+        <MotionPreview />
+      </div>
+      <HelpSheet />
+    </div>
+  );
+}
+
+export interface CurveEditorProps {
+  source: EditorDocumentSource;
+  /** Used when the source holds nothing yet. */
+  fallback: CurveDocument;
+  profiles: readonly Profile[];
+  /** e.g. "demo targets" until the team's target profiles are wired in. */
+  profilesLabel: string;
+}
+
+export function CurveEditor({ source, fallback, profiles, profilesLabel }: CurveEditorProps) {
+  const [loaded, setLoaded] = useState<{ store: EditorStoreApi; version: number | null; note?: string } | null>(null);
+  const runner = useMemo(() => createBakeRunner(profiles), [profiles]);
+  useEffect(() => () => runner.dispose(), [runner]);
+  useEffect(() => {
+    let live = true;
+    void source.load().then((r) => {
+      if (!live) return;
+      if (r.ok && r.loaded) setLoaded({ store: createEditorStore(r.loaded.doc), version: r.loaded.version });
+      else setLoaded({
+        store: createEditorStore(fallback), version: null,
+        note: r.ok ? undefined : `${r.message} Starting from the example instead${r.issues?.length ? ` (${r.issues[0].message})` : ''}.`,
+      });
+    });
+    return () => { live = false; };
+  }, [source, fallback]);
+  if (!loaded) return <p className="text-sm">Opening the curve…</p>;
+  return (
+    <EditorProvider store={loaded.store}>
+      {loaded.note && <p role="alert" className="mb-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">{loaded.note}</p>}
+      <EditorBody source={source} runner={runner} profiles={profiles} profilesLabel={profilesLabel} initialVersion={loaded.version} />
+    </EditorProvider>
+  );
+}

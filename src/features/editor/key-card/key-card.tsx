@@ -1,0 +1,161 @@
+/**
+ * The key card: numeric fields for the selected key and the segment that follows it, floating next
+ * to the key. Every change is checked with the shared schema (./validate-edit.ts); a rejected value
+ * stays in its field with the schema's message beside it, and the document is not touched.
+ */
+import { useEffect, useId, useState, type ReactNode } from 'react';
+import { SHAPE_DEFAULTS, SHAPE_FAMILIES, SLOPE_RULES, SEGMENT_KINDS, type CurveDocument, type Key, type Segment, type ShapeFamily } from '../../../../shared/curve';
+import { useEditor, useEditorApi } from '../store/editor-context';
+import { patchKey, patchSegment } from '../store/edits';
+import { short } from '../canvas/format';
+import { checkEdit, parseNumberField, type FieldErrors } from './validate-edit';
+
+const PARAMS_BY_FAMILY: Partial<Record<ShapeFamily, readonly ('overshoot' | 'amplitude' | 'period' | 'stiffness' | 'damping' | 'mass' | 'velocity')[]>> = {
+  back: ['overshoot'],
+  elastic: ['amplitude', 'period'],
+  spring: ['stiffness', 'damping', 'mass', 'velocity'],
+};
+
+function segmentOfKind(doc: CurveDocument, i: number, kind: Segment['kind']): Segment {
+  if (kind === 'bezier') {
+    const a = doc.keys[i], b = doc.keys[i + 1];
+    const h = b.time - a.time;
+    return { kind, bezier: { h1: { time: a.time + h / 3, value: a.value + (b.value - a.value) / 3 }, h2: { time: a.time + (2 * h) / 3, value: a.value + (2 * (b.value - a.value)) / 3 } } };
+  }
+  if (kind === 'shape') return { kind, shape: { family: 'sine', ease: 'in-out' } };
+  return { kind };
+}
+
+function NumberField({ label, unit, value, error, onCommit, testId }: {
+  label: string; unit?: string; value: number; error?: string; onCommit: (text: string) => void; testId: string;
+}) {
+  const id = useId();
+  const [text, setText] = useState(short(value));
+  const [editing, setEditing] = useState(false);
+  useEffect(() => { if (!editing && !error) setText(short(value)); }, [value, editing, error]);
+  return (
+    <div className="grid grid-cols-[5.5rem_1fr] items-start gap-x-2">
+      <label htmlFor={id} className="pt-1 text-xs text-ink/70 dark:text-paper/70">{label}</label>
+      <div>
+        <div className="flex items-center gap-1">
+          <input id={id} data-testid={testId} inputMode="decimal" value={text} aria-invalid={!!error} aria-describedby={error ? `${id}-err` : undefined}
+            onFocus={() => setEditing(true)}
+            onChange={(e) => setText(e.target.value)}
+            onBlur={() => { setEditing(false); if (text !== short(value)) onCommit(text); }}
+            onKeyDown={(e) => {
+              if (e.key === 'Enter') { onCommit(text); }
+              if (e.key === 'Escape') { setText(short(value)); e.stopPropagation(); }
+            }}
+            className={`w-full min-w-0 rounded-sm border bg-card px-1.5 py-0.5 font-mono text-sm dark:bg-night ${error ? 'border-brick' : 'border-grid-major dark:border-night-line'}`} />
+          {unit && <span className="shrink-0 font-mono text-xs text-ink/60 dark:text-paper/60">{unit}</span>}
+        </div>
+        {error && <p id={`${id}-err`} role="alert" className="mt-0.5 text-xs text-brick dark:text-[#e07a6a]">{error}</p>}
+      </div>
+    </div>
+  );
+}
+
+function SelectField({ label, value, options, onChange, testId, error }: {
+  label: string; value: string; options: readonly string[]; onChange: (v: string) => void; testId: string; error?: string;
+}) {
+  const id = useId();
+  return (
+    <div className="grid grid-cols-[5.5rem_1fr] items-start gap-x-2">
+      <label htmlFor={id} className="pt-1 text-xs text-ink/70 dark:text-paper/70">{label}</label>
+      <div>
+        <select id={id} data-testid={testId} value={value} onChange={(e) => onChange(e.target.value)}
+          className="w-full rounded-sm border border-grid-major bg-card px-1 py-0.5 text-sm dark:border-night-line dark:bg-night">
+          {options.map((o) => <option key={o} value={o}>{o}</option>)}
+        </select>
+        {error && <p role="alert" className="mt-0.5 text-xs text-brick">{error}</p>}
+      </div>
+    </div>
+  );
+}
+
+export function KeyCard({ position }: { position: { left: number; top: number } }) {
+  const api = useEditorApi();
+  const doc = useEditor((s) => s.doc);
+  const primary = useEditor((s) => s.primary);
+  const count = useEditor((s) => s.selection.length);
+  const [errors, setErrors] = useState<FieldErrors>({});
+  useEffect(() => setErrors({}), [primary]);
+  if (primary === null || primary >= doc.keys.length) return null;
+  const i = primary;
+  const key = doc.keys[i];
+  const seg = i < doc.segments.length ? doc.segments[i] : null;
+  const unit = doc.units.value;
+
+  const apply = (candidate: CurveDocument, field: string) => {
+    const r = checkEdit(candidate, i);
+    if (!r.ok) { setErrors((e) => ({ ...e, ...r.errors, ...(r.errors[field] ? {} : { [field]: Object.values(r.errors)[0] }) })); return; }
+    setErrors({});
+    api.getState().edit(() => r.doc);
+  };
+  const numberKey = (field: 'time' | 'value' | 'slopeIn' | 'slopeOut' | 'tension', label: string) => (text: string) => {
+    const n = parseNumberField(text, label);
+    if (!n.ok) { setErrors((e) => ({ ...e, [field]: n.error })); return; }
+    let patch: Partial<Key> = { [field]: n.value };
+    if (field === 'slopeIn' || field === 'slopeOut') {
+      patch = key.slopes === 'joined' ? { rule: 'manual', slopeIn: n.value, slopeOut: n.value } : { rule: 'manual', [field]: n.value };
+    }
+    apply(patchKey(doc, i, patch), field);
+  };
+  const numberParam = (p: string) => (text: string) => {
+    if (!seg?.shape) return;
+    const n = parseNumberField(text, p);
+    if (!n.ok) { setErrors((e) => ({ ...e, [p]: n.error })); return; }
+    apply(patchSegment(doc, i, { ...seg, shape: { ...seg.shape, params: { ...seg.shape.params, [p]: n.value } } }), p);
+  };
+
+  const row = (node: ReactNode) => node;
+  return (
+    <section aria-label={`Key ${i + 1} card`} data-testid="key-card"
+      className="absolute z-10 w-72 rounded-md border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] backdrop-blur-[1px] dark:border-night-line dark:bg-night-card/95"
+      style={{ left: position.left, top: position.top }}
+      onPointerDown={(e) => e.stopPropagation()}>
+      <header className="mb-2 flex items-baseline justify-between">
+        <h2 className="text-sm font-semibold">Key {i + 1} <span className="font-normal text-ink/60 dark:text-paper/60">of {doc.keys.length}</span></h2>
+        {count > 1 && <span className="text-xs text-ink/60 dark:text-paper/60">{count} keys selected</span>}
+      </header>
+      <div className="grid gap-1.5">
+        <NumberField label="time" unit="s" value={key.time} error={errors.time} onCommit={numberKey('time', 'time')} testId="card-time" />
+        <NumberField label="value" unit={unit} value={key.value} error={errors.value} onCommit={numberKey('value', 'value')} testId="card-value" />
+        <NumberField label="in-slope" unit={`${unit}/s`} value={key.slopeIn} error={errors.slopeIn} onCommit={numberKey('slopeIn', 'in-slope')} testId="card-slope-in" />
+        <NumberField label="out-slope" unit={`${unit}/s`} value={key.slopeOut} error={errors.slopeOut} onCommit={numberKey('slopeOut', 'out-slope')} testId="card-slope-out" />
+        <SelectField label="slope rule" value={key.rule} options={SLOPE_RULES} testId="card-rule" error={errors.rule}
+          onChange={(v) => apply(patchKey(doc, i, { rule: v as Key['rule'] }), 'rule')} />
+        {key.rule === 'catmull-rom' && (
+          <NumberField label="tension" value={key.tension ?? 0} error={errors.tension} onCommit={numberKey('tension', 'tension')} testId="card-tension" />
+        )}
+        <SelectField label="in / out" value={key.slopes} options={['joined', 'split']} testId="card-slopes" error={errors.slopes}
+          onChange={(v) => apply(patchKey(doc, i, v === 'joined' ? { slopes: 'joined', slopeIn: key.slopeOut } : { slopes: 'split' }), 'slopes')} />
+        {seg && row(
+          <div className="mt-1 grid gap-1.5 border-t border-grid-minor pt-2 dark:border-night-line">
+            <p className="text-xs font-medium text-ink/70 dark:text-paper/70">Segment to key {i + 2}</p>
+            <SelectField label="kind" value={seg.kind} options={SEGMENT_KINDS} testId="card-kind" error={errors.kind}
+              onChange={(v) => apply(patchSegment(doc, i, segmentOfKind(doc, i, v as Segment['kind'])), 'kind')} />
+            {seg.kind === 'shape' && seg.shape && (
+              <>
+                <SelectField label="shape" value={seg.shape.family} options={SHAPE_FAMILIES} testId="card-shape" error={errors.shape}
+                  onChange={(v) => apply(patchSegment(doc, i, { kind: 'shape', shape: { family: v as ShapeFamily, ease: seg.shape!.ease } }), 'shape')} />
+                <SelectField label="ease" value={seg.shape.ease} options={['in', 'out', 'in-out']} testId="card-ease"
+                  onChange={(v) => apply(patchSegment(doc, i, { ...seg, shape: { ...seg.shape!, ease: v as 'in' | 'out' | 'in-out' } }), 'shape')} />
+                {(PARAMS_BY_FAMILY[seg.shape.family] ?? []).map((p) => (
+                  <NumberField key={p} label={p} value={seg.shape!.params?.[p] ?? defaultParam(p)} error={errors[p]} onCommit={numberParam(p)} testId={`card-${p}`} />
+                ))}
+              </>
+            )}
+            {errors.bezier && <p role="alert" className="text-xs text-brick">{errors.bezier}</p>}
+          </div>,
+        )}
+        {errors.other && <p role="alert" className="text-xs text-brick">{errors.other}</p>}
+      </div>
+    </section>
+  );
+}
+
+/** Shown when a parameter is absent: the curve engine's defaults. */
+function defaultParam(p: string): number {
+  return (SHAPE_DEFAULTS as Record<string, number>)[p] ?? 0;
+}
