@@ -16,9 +16,10 @@
  *
  * Search. (1) Greedy subdivision: starting from the first and last sample, every segment whose error
  * exceeds the tolerance is split at the sample nearest its middle, and the whole curve is refitted,
- * until all segments pass or no segment can be split. (2) Removal: interior knots are dropped one at a
- * time (least local error first) while the refitted curve still meets the tolerance. (3) Uniform fit:
- * the smallest number of evenly spaced knots that meets the tolerance is searched too, and the result
+ * until all segments pass or no segment can be split. (2) Removal: interior knots are dropped in order
+ * of least local error while a local refit (see removeKnots) still meets the tolerance, then the whole
+ * curve is refitted. (3) Uniform fit: the smallest number of evenly spaced knots that meets the
+ * tolerance is searched too (up to the adaptive count), and the result
  * with fewer keys is returned (so the answer never needs more keys than the uniform least-squares fit).
  */
 
@@ -50,6 +51,9 @@ export interface FitOptions {
   /** Upper bound on the number of keys (default: the number of samples). */
   maxKeys?: number;
 }
+
+/** Unknowns held at given numbers in leastSquaresHermite: [index into [v0, m0, v1, m1, …], value]. */
+type Fixed = readonly (readonly [number, number])[];
 
 /** Error of a fit: per segment maxima and the totals. */
 interface FitError {
@@ -97,7 +101,7 @@ function sampleLerp(t: Float64Array, y: Float64Array, x: number): number {
  * Returns [v_0, m_0, v_1, m_1, …].
  */
 export function leastSquaresHermite(
-  t: Float64Array, y: Float64Array, knots: Float64Array, opts: FitOptions = {},
+  t: Float64Array, y: Float64Array, knots: Float64Array, opts: FitOptions = {}, fixed: Fixed = [],
 ): Float64Array {
   const K = knots.length;
   const n = 2 * K;
@@ -146,6 +150,7 @@ export function leastSquaresHermite(
   };
   if (opts.fixStartValue !== undefined) fix(0, opts.fixStartValue);
   if (opts.fixEndValue !== undefined) fix(2 * (K - 1), opts.fixEndValue);
+  for (const [idx, c] of fixed) fix(idx, c);
   return solveBanded3(A, b, n);
 }
 
@@ -188,7 +193,8 @@ function measure(t: Float64Array, y: Float64Array, ms: Float64Array, knots: Floa
     if (e > atSamples) atSamples = e;
     if (i + 1 < t.length) {
       const g = t[i + 1] - t[i];
-      for (const s of [0.25, 0.5, 0.75]) {
+      for (let q = 1; q <= 3; q++) {
+        const s = 0.25 * q;
         const ref = hermiteAt(y[i], ms[i], y[i + 1], ms[i + 1], g, s);
         const e2 = Math.abs(at(t[i] + s * g) - ref);
         if (e2 > seg[k]) seg[k] = e2;
@@ -244,23 +250,68 @@ function adaptive(t: Float64Array, y: Float64Array, ms: Float64Array, tol: numbe
   return removeKnots(t, y, ms, tol, opts, cur);
 }
 
-/** Drop interior knots while the refit still meets the tolerance (least local error first). */
-function removeKnots(t: Float64Array, y: Float64Array, ms: Float64Array, tol: number, opts: FitOptions, start: Trial): Trial {
-  let cur = start;
-  let changed = true;
-  while (changed && cur.knots.length > 2) {
-    changed = false;
-    const order: number[] = [];
-    for (let j = 1; j < cur.knots.length - 1; j++) order.push(j);
-    const local = (j: number) => Math.max(cur.err.seg[j - 1], cur.err.seg[j]);
-    order.sort((a, b) => local(a) - local(b));
-    for (const j of order) {
-      const knots = Float64Array.from([...cur.knots.subarray(0, j), ...cur.knots.subarray(j + 1)]);
-      const tr = trial(t, y, ms, knots, opts);
-      if (tr.max <= tol) { cur = tr; changed = true; break; }
-    }
+/** First index i with t[i] ≥ x (binary search). */
+function lowerBound(t: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = t.length;
+  while (lo < hi) {
+    const m = (lo + hi) >> 1;
+    if (t[m] < x) lo = m + 1;
+    else hi = m;
   }
-  return cur;
+  return lo;
+}
+
+/**
+ * Drop interior knots while the curve still meets the tolerance. Removing knot j is tried by a local
+ * refit: the knots j−2 … j+2 without j, with the values and slopes of the two outer ones held, fitted
+ * to the samples between them (so the rest of the curve is unchanged and a trial costs only the
+ * window's samples). Sweeps go in order of least local error, at most 3, each trying every knot once.
+ * At the end the whole curve is refitted by least squares and kept if it also meets the tolerance.
+ */
+function removeKnots(t: Float64Array, y: Float64Array, ms: Float64Array, tol: number, opts: FitOptions, start: Trial): Trial {
+  const knots = Array.from(start.knots);
+  const p = Array.from(start.p);
+  let seg = Array.from(start.err.seg);
+  for (let sweep = 0; sweep < 3 && knots.length > 2; sweep++) {
+    const order: number[] = [];
+    for (let j = 1; j < knots.length - 1; j++) order.push(j);
+    const local = (j: number) => Math.max(seg[j - 1], seg[j]);
+    order.sort((a, b) => local(a) - local(b));
+    const candidates = order.map((j) => knots[j]);
+    let removed = 0;
+    for (const time of candidates) {
+      const j = knots.indexOf(time);
+      if (j <= 0 || j >= knots.length - 1) continue;
+      const L = Math.max(0, j - 2);
+      const R = Math.min(knots.length - 1, j + 2);
+      const wk = Float64Array.from(knots.slice(L, R + 1).filter((_, m) => L + m !== j));
+      const i0 = lowerBound(t, knots[L]);
+      const i1 = lowerBound(t, knots[R]) + 1; // include the sample at knots[R]
+      const tw = t.subarray(i0, Math.min(t.length, i1));
+      const yw = y.subarray(i0, Math.min(t.length, i1));
+      const mw = ms.subarray(i0, Math.min(t.length, i1));
+      const last = 2 * (wk.length - 1);
+      const fixed: [number, number][] = [[0, p[2 * L]], [1, p[2 * L + 1]], [last, p[2 * R]], [last + 1, p[2 * R + 1]]];
+      if (tw.length < 2) continue;
+      const pw = leastSquaresHermite(tw, yw, wk, {}, fixed);
+      const ew = measure(tw, yw, mw, wk, pw);
+      if (Math.max(ew.atSamples, ew.between) > tol) continue;
+      // accept: splice the window's knots, parameters and segment errors
+      knots.splice(L, R - L + 1, ...wk);
+      p.splice(2 * L, 2 * (R - L + 1), ...pw);
+      seg.splice(L, R - L, ...ew.seg);
+      removed++;
+    }
+    if (removed === 0) break;
+  }
+  const kf = Float64Array.from(knots);
+  const global = trial(t, y, ms, kf, opts);
+  if (global.max <= tol) return global;
+  const pf = Float64Array.from(p);
+  const err = measure(t, y, ms, kf, pf);
+  seg = Array.from(err.seg);
+  return { knots: kf, p: pf, err, max: Math.max(err.atSamples, err.between) };
 }
 
 function uniformKnots(a: number, b: number, count: number): Float64Array {
