@@ -7,5 +7,5 @@ export const acceptInvitation = (body: { token: string; name?: string; password:
 
 export function useAcceptInvitation() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: acceptInvitation, onSuccess: () => qc.invalidateQueries() });
+  return useMutation({ mutationFn: acceptInvitation, onSuccess: () => qc.resetQueries() });
 }

@@ -13,8 +13,9 @@ export function useSignIn() {
   return useMutation({
     mutationFn: signIn,
     onSuccess: (me) => {
-      qc.clear();
+      // keep observers attached (the top bar's): set who is signed in, forget everything else
       qc.setQueryData(meQueryKey, me);
+      void qc.resetQueries({ predicate: (q) => q.queryKey[0] !== 'auth' });
     },
   });
 }

@@ -12,8 +12,8 @@ export function useSignOut() {
   return useMutation({
     mutationFn: (everywhere: boolean = false) => signOut(everywhere),
     onSuccess: () => {
-      qc.clear();
       qc.setQueryData(meQueryKey, null);
+      void qc.resetQueries({ predicate: (q) => q.queryKey[0] !== 'auth' });
     },
   });
 }
