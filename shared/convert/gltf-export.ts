@@ -186,8 +186,9 @@ function measure(source: PreparedCurve, track: GltfTrack, offset: number): numbe
       || (i > 0 && source.kinds[i - 1] === KIND_STEP && source.values[i - 1] !== source.values[i]);
     if (jumpHere) {
       const w = 2e-6 * Math.max(1, Math.abs(t + offset));
-      if (i > 0) check(t - w);
-      if (i + 1 < n) check(t + w);
+      // only inside the domain [start, end]
+      if (t - w >= source.start) check(t - w);
+      if (t + w <= source.end) check(t + w);
     } else check(t);
     if (i + 1 < n) {
       const h = source.times[i + 1] - t;

@@ -96,6 +96,25 @@ describe('exportGltf', () => {
     expect(ex.report[2].notes.join(' ')).toMatch(/ramp/);
   });
 
+  it('edge cases: one key, jumps in STEP and LINEAR tracks, a spring shape, non-clamp outside rules', async () => {
+    const edge: CurveDocument[] = [
+      curve('single', [key(0.3, 2)], []),
+      curve('step-jump', [key(0, 0), key(0.5, 1), key(0.5, 2), key(1, 3)], [{ kind: 'step' }, { kind: 'step' }, { kind: 'step' }]),
+      curve('jump-first', [key(0, 0), key(0, 1), key(1, 3)], [{ kind: 'linear' }, { kind: 'linear' }]),
+      curve('spring', [key(0, 0), key(1, 1)], [{ kind: 'shape', shape: { family: 'spring', ease: 'out', params: { stiffness: 170, damping: 26, mass: 1, velocity: 0 } } }], { after: 'repeat' }),
+    ];
+    for (const d of edge) expect(parseCurveDocument(d).ok, d.name).toBe(true);
+    const ex = exportGltf(edge, { tolerance: 1e-3 });
+    await validate(new TextEncoder().encode(JSON.stringify(ex.json)), 'gltf');
+    expect(ex.report.map((r) => [r.interpolation, r.keys])).toEqual([['STEP', 1], ['STEP', 3], ['LINEAR', 2], ['CUBICSPLINE', ex.report[3].keys]]);
+    expect(ex.report.slice(0, 3).every((r) => r.exact && r.maxError === 0)).toBe(true);
+    expect(ex.report[3].maxError).toBeLessThanOrEqual(1e-3);
+    expect(ex.report[3].notes.join(' ')).toMatch(/after "repeat" are not carried/);
+    const clip = await loadWithThree(JSON.stringify(ex.json));
+    const c = prepareCurve(edge[1]);
+    for (const t of [0, 0.25, 0.5, 0.75, 1]) expect(threeSample(clip.tracks[1], t)).toBe(evaluate(c, t));
+  });
+
   it('shifts negative times for every track and reports it', async () => {
     const ex = exportGltf([curve('early', [key(-0.5, 0), key(0.5, 1)], [{ kind: 'linear' }]), exactCurves[1]]);
     expect(ex.timeOffset).toBe(0.5);
