@@ -19,7 +19,7 @@ async function openFresh(page: Page) {
 }
 
 async function centre(page: Page, testId: string) {
-  const box = await page.getByTestId(testId).locator('circle').last().boundingBox();
+  const box = await page.getByTestId(testId).locator('circle.dot').boundingBox();
   if (!box) throw new Error(`${testId} has no box`);
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
 }

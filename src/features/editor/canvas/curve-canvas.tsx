@@ -14,6 +14,7 @@ import { useCanvasGestures, type BoxRect } from './use-canvas-gestures';
 export interface OverlayData {
   name: string;
   tolerance: number;
+  entries: number;
   dotTimes: Float64Array;
   dotValues: Float64Array;
 }
@@ -77,16 +78,19 @@ export function CurveCanvas({ height = 440, overlay, children }: {
 
   return (
     <div ref={wrapRef} className="relative w-full select-none">
+      {/* the grid is its own layer: a drag repaints only the curve and the keys */}
+      <svg width={width} height={height} aria-hidden="true" className="pointer-events-none absolute inset-0 rounded-md [will-change:transform]">
+        <GridLayer tf={tf} frameRate={doc.frameRate} unit={doc.units.value} />
+      </svg>
       <svg ref={svgRef} {...bind()} width={width} height={height} role="application" aria-roledescription="curve canvas"
         aria-label={`Curve ${doc.name}: ${doc.keys.length} keys. Tab to a key, arrows nudge it, Delete removes it; press ? for every shortcut.`}
-        className="block touch-none rounded-md border border-grid-major/70 dark:border-night-line" data-testid="curve-canvas">
-        <GridLayer tf={tf} frameRate={doc.frameRate} unit={doc.units.value} />
-        {overlay && band && (
-          <OverlayLayer tf={tf} name={overlay.name} dotTimes={overlay.dotTimes} dotValues={overlay.dotValues}
-            bandTimes={band.ts} bandLo={band.lo} bandHi={band.hi} />
-        )}
+        className="relative block touch-none rounded-md border border-grid-major/70 [will-change:transform] dark:border-night-line" data-testid="curve-canvas">
         <svg x={tf.plot.x} y={tf.plot.y} width={tf.plot.w} height={tf.plot.h} viewBox={`${tf.plot.x} ${tf.plot.y} ${tf.plot.w} ${tf.plot.h}`} overflow="hidden">
           <CurveLayer curve={curve} tf={tf} onDoubleClick={onDoubleClick} />
+          {overlay && band && (
+            <OverlayLayer tf={tf} name={overlay.name} dotTimes={overlay.dotTimes} dotValues={overlay.dotValues}
+              bandTimes={band.ts} bandLo={band.lo} bandHi={band.hi} />
+          )}
           <ScrubLine tf={tf} t={playhead} />
         </svg>
         <HandlesLayer curve={curve} tf={tf} selection={selection} />
@@ -96,6 +100,11 @@ export function CurveCanvas({ height = 440, overlay, children }: {
             className="pointer-events-none fill-vermilion/10 stroke-vermilion" strokeDasharray="4 3" data-testid="box-select" />
         )}
       </svg>
+      {overlay && (
+        <p className="pointer-events-none absolute font-mono text-[11px] text-[#2f5f8f] dark:text-[#8fb6dc]" style={{ left: tf.plot.x + 8, top: tf.plot.y + 4 }} data-testid="overlay-legend">
+          {overlay.name} table: {overlay.entries} entries (dots{overlay.entries > overlay.dotTimes.length ? `, every ${Math.ceil(overlay.entries / overlay.dotTimes.length)}th shown` : ''}) · band: curve ± {overlay.tolerance.toExponential(2)} {doc.units.value} (drawn at least 3 px wide)
+        </p>
+      )}
       {children?.(tf, width)}
     </div>
   );

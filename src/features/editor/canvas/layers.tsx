@@ -72,15 +72,19 @@ export interface KeyView {
   value: number;
 }
 
+/**
+ * One key: a filled ink circle (its transparent 12 px stroke is the hit area), a vermilion ring when
+ * selected, a vermilion stroke when focused from the keyboard. Two elements at most: a 500-key curve
+ * stays cheap to paint while a key moves.
+ */
 const KeyDot = memo(function KeyDot({ i, x, y, selected, name, onFocusKey }: {
   i: number; x: number; y: number; selected: boolean; name: string; onFocusKey: (i: number) => void;
 }) {
   return (
     <g role="button" tabIndex={0} aria-label={name} aria-pressed={selected} data-key={i} data-testid={`key-${i}`}
-      onFocus={() => onFocusKey(i)} className="cursor-grab outline-none [&:focus-visible>circle.ring]:stroke-vermilion [&:focus-visible>circle.ring]:opacity-100">
-      <circle cx={x} cy={y} r={11} fill="transparent" />
-      <circle className={`ring ${selected ? 'opacity-100' : 'opacity-0'}`} cx={x} cy={y} r={7.5} fill="none" strokeWidth={2.25} stroke="#d2452b" />
-      <circle cx={x} cy={y} r={4.5} className="fill-ink dark:fill-paper" />
+      onFocus={() => onFocusKey(i)} className="cursor-grab outline-none [&:focus-visible>.dot]:stroke-vermilion">
+      {selected && <circle cx={x} cy={y} r={7.5} fill="none" strokeWidth={2.25} stroke="#d2452b" />}
+      <circle className="dot fill-ink dark:fill-paper" cx={x} cy={y} r={4.5} stroke="transparent" strokeWidth={12} />
     </g>
   );
 });
@@ -129,20 +133,24 @@ export const HandlesLayer = memo(function HandlesLayer({ curve, tf, selection }:
   return <g aria-hidden="true">{items}</g>;
 });
 
-/** A target's table (dots at its entries) and its error envelope (source ± tolerance, a translucent band). */
+/**
+ * A target's table (hollow dots at its entries) and its error envelope (the curve ± the tolerance, a
+ * translucent band, drawn at least 3 px wide so a tight budget stays visible). Blueprint blue: a darker
+ * shade of the grid, kept apart from the verdict colours and the vermilion of the selection.
+ */
 export const OverlayLayer = memo(function OverlayLayer({ tf, dotTimes, dotValues, bandTimes, bandLo, bandHi, name }: {
   tf: Transform; dotTimes: Float64Array; dotValues: Float64Array; bandTimes: Float64Array; bandLo: Float64Array; bandHi: Float64Array; name: string;
 }) {
-  const band = bandPath(tf, bandTimes, bandLo, bandHi, 1.5);
+  const band = bandPath(tf, bandTimes, bandLo, bandHi, 3);
   const dots = [];
   const { t0, t1 } = tf.view;
   for (let k = 0; k < dotTimes.length; k++) {
     if (dotTimes[k] < t0 || dotTimes[k] > t1) continue;
-    dots.push(<circle key={k} cx={toX(tf, dotTimes[k])} cy={toY(tf, dotValues[k])} r={2.2} className="fill-[#2f6f9f]" />);
+    dots.push(<circle key={k} cx={toX(tf, dotTimes[k])} cy={toY(tf, dotValues[k])} r={3} strokeWidth={1.3} className="fill-card stroke-[#2f5f8f] dark:fill-night-card dark:stroke-[#8fb6dc]" />);
   }
   return (
     <g data-testid="table-overlay" aria-label={`${name} table overlay`} role="img">
-      <path d={band} className="fill-[#2f6f9f]/20 stroke-none" />
+      <path d={band} className="fill-[#2f5f8f]/20 stroke-none dark:fill-[#8fb6dc]/20" />
       {dots}
     </g>
   );

@@ -55,23 +55,34 @@ function useAutosave(api: EditorStoreApi, source: EditorDocumentSource, initialV
   useEffect(() => {
     let timer: ReturnType<typeof setTimeout> | undefined;
     let lastSaved = api.getState().doc;
+    const saveNow = async () => {
+      clearTimeout(timer);
+      const doc = api.getState().doc;
+      if (doc === lastSaved) return;
+      setStatus({ kind: 'saving' });
+      try {
+        const r = await source.save(doc, version.current);
+        if (r.ok) { version.current = r.version; lastSaved = doc; setStatus({ kind: 'saved', at: new Date() }); }
+        else setStatus({ kind: 'conflict', theirs: r.conflict.doc, version: r.conflict.version });
+      } catch (e) {
+        setStatus({ kind: 'error', message: (e as Error).message });
+      }
+    };
     const unsub = api.subscribe((s) => {
       if (s.drag || s.doc === lastSaved) return;
       clearTimeout(timer);
-      timer = setTimeout(async () => {
-        const doc = api.getState().doc;
-        if (api.getState().drag) return;
-        setStatus({ kind: 'saving' });
-        try {
-          const r = await source.save(doc, version.current);
-          if (r.ok) { version.current = r.version; lastSaved = doc; setStatus({ kind: 'saved', at: new Date() }); }
-          else setStatus({ kind: 'conflict', theirs: r.conflict.doc, version: r.conflict.version });
-        } catch (e) {
-          setStatus({ kind: 'error', message: (e as Error).message });
-        }
-      }, SAVE_DELAY_MS);
+      timer = setTimeout(() => { if (!api.getState().drag) void saveNow(); }, SAVE_DELAY_MS);
     });
-    return () => { unsub(); clearTimeout(timer); };
+    // leaving or hiding the page keeps the newest edit at once (the local source writes synchronously)
+    const flush = () => { if (!api.getState().drag) void saveNow(); };
+    const hidden = () => { if (document.visibilityState === 'hidden') flush(); };
+    window.addEventListener('pagehide', flush);
+    document.addEventListener('visibilitychange', hidden);
+    return () => {
+      unsub(); clearTimeout(timer);
+      window.removeEventListener('pagehide', flush);
+      document.removeEventListener('visibilitychange', hidden);
+    };
   }, [api, source]);
   return {
     status,
@@ -123,7 +134,7 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }:
   const results = useStore(runner.store, (s) => s.results);
   const overlay: OverlayData | null = useMemo(() => {
     const r = overlayName ? results[overlayName] : undefined;
-    return r && r.ok ? { name: r.profile, tolerance: r.tolerance, dotTimes: r.dotTimes, dotValues: r.dotValues } : null;
+    return r && r.ok ? { name: r.profile, tolerance: r.tolerance, entries: r.entries, dotTimes: r.dotTimes, dotValues: r.dotValues } : null;
   }, [overlayName, results]);
   const st = save.status;
   return (

@@ -111,7 +111,7 @@ export function KeyCard({ position }: { position: { left: number; top: number } 
   const row = (node: ReactNode) => node;
   return (
     <section aria-label={`Key ${i + 1} card`} data-testid="key-card"
-      className="absolute z-10 w-72 rounded-md border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] backdrop-blur-[1px] dark:border-night-line dark:bg-night-card/95"
+      className="absolute z-10 w-72 rounded-md [will-change:transform] border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] dark:border-night-line dark:bg-night-card/95"
       style={{ left: position.left, top: position.top }}
       onPointerDown={(e) => e.stopPropagation()}>
       <header className="mb-2 flex items-baseline justify-between">

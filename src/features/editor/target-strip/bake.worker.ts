@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 /**
- * One target profile's bakes, off the main thread. Message in: { seq, doc, profile }; out: { seq, result }.
- * The runner (./bake-runner.ts) sends a new document only when this worker has answered the last one.
+ * Bakes off the main thread. Message in: { seq, doc, profile }; out: { seq, result }.
+ * The runner (./bake-runner.ts) sends a new job only when this worker has answered the last one.
  */
 import type { Profile } from '../../../../shared/bake';
 import type { CurveDocument } from '../../../../shared/curve';

@@ -2,7 +2,8 @@
  * The target strip: one row per target profile — entries, bytes, measured error against tolerance
  * as a small bar, and the verdict as a word with its colour and shape (never colour alone).
  * Bakes run in workers (./bake-runner.ts); the document is handed over at most once per animation
- * frame, so a drag never waits for a bake.
+ * frame, so a drag never waits for a bake. A target whose bakes are slow (over LIVE_BAKE_MS) is
+ * baked again when the drag ends, and its row says so.
  */
 import { useEffect, useState, type ReactNode } from 'react';
 import { useStore } from 'zustand';
@@ -19,13 +20,17 @@ export function useBakeOnFrames(runner: BakeRunner) {
   useEffect(() => {
     let raf = 0;
     let last = api.getState().doc;
+    let lastDrag = false;
     runner.submit(last);
     const unsub = api.subscribe((s) => {
-      if (s.doc === last || raf) return;
+      const dragging = s.drag !== null;
+      if ((s.doc === last && dragging === lastDrag) || raf) return;
       raf = requestAnimationFrame(() => {
         raf = 0;
-        last = api.getState().doc;
-        runner.submit(last);
+        const now = api.getState();
+        last = now.doc;
+        lastDrag = now.drag !== null;
+        runner.submit(last, lastDrag);
       });
     });
     return () => { unsub(); if (raf) cancelAnimationFrame(raf); };
@@ -51,8 +56,8 @@ function spec(p: Profile): string {
   return `${p.output === 'css' ? 'CSS linear()' : `${p.encoding} · ${p.kernel} · ${p.layout}`} · tol ${tol}`;
 }
 
-function Row({ profile, result, stale, overlay, onOverlay }: {
-  profile: Profile; result: StripResult | undefined; stale: boolean; overlay: boolean; onOverlay: () => void;
+function Row({ profile, result, stale, held, overlay, onOverlay }: {
+  profile: Profile; result: StripResult | undefined; stale: boolean; held: boolean; overlay: boolean; onOverlay: () => void;
 }) {
   let cells: ReactNode;
   if (!result) {
@@ -90,7 +95,10 @@ function Row({ profile, result, stale, overlay, onOverlay }: {
   return (
     <tr className={`border-t border-grid-minor dark:border-night-line ${stale ? 'opacity-70' : ''}`} data-testid={`target-${profile.name}`} aria-busy={stale}>
       <th scope="row" className="px-2 py-1.5 text-left align-top">
-        <div className="text-sm font-medium">{profile.name}</div>
+        <div className="text-sm font-medium">
+          {profile.name}
+          {held && result && <span className="ml-2 text-[11px] font-normal text-ink/60 dark:text-paper/60">bakes when you let go ({Math.round(result.ms)} ms a bake)</span>}
+        </div>
         <div className="font-mono text-[11px] font-normal text-ink/60 dark:text-paper/60">{spec(profile)}</div>
       </th>
       {cells}
@@ -108,6 +116,7 @@ export function TargetStrip({ runner, profiles, profilesLabel }: { runner: BakeR
   useBakeOnFrames(runner);
   const results = useStore(runner.store, (s) => s.results);
   const stale = useStore(runner.store, (s) => s.stale);
+  const held = useStore(runner.store, (s) => s.held);
   const overlay = useEditor((s) => s.overlay);
   const api = useEditorApi();
   const [showHelp, setShowHelp] = useState(false);
@@ -142,7 +151,7 @@ export function TargetStrip({ runner, profiles, profilesLabel }: { runner: BakeR
           </thead>
           <tbody>
             {profiles.map((p) => (
-              <Row key={p.name} profile={p} result={results[p.name]} stale={!!stale[p.name]} overlay={overlay === p.name}
+              <Row key={p.name} profile={p} result={results[p.name]} stale={!!stale[p.name]} held={!!held[p.name]} overlay={overlay === p.name}
                 onOverlay={() => api.getState().setOverlay(overlay === p.name ? null : p.name)} />
             ))}
           </tbody>
