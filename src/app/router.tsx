@@ -10,6 +10,7 @@ import { ResetPasswordPage } from '../pages/reset-password-page';
 import { ProfilePage } from '../pages/profile-page';
 import { TeamPage } from '../pages/team-page';
 import { TokensPage } from '../pages/tokens-page';
+import { ProfilesPage } from '../pages/profiles-page';
 import { OutboxPage } from '../pages/outbox-page';
 import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
 import { AppLayout } from './layout/app-layout';
@@ -34,6 +35,7 @@ export const routes: RouteObject[] = [
           { path: 'profile', element: <ProfilePage /> },
           { path: 'team', element: <TeamPage /> },
           { path: 'team/tokens', element: <TokensPage /> },
+          { path: 'team/profiles', element: <ProfilesPage /> },
           { path: 'outbox', element: <OutboxPage /> },
           { path: 'editor', element: <EditorPage /> },
           { path: '*', element: <NotFoundPage /> },

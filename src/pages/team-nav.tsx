@@ -5,6 +5,7 @@ import { roleCan, type Role } from '../../shared/schemas/roles';
 export function TeamNav({ role }: { role: Role }) {
   const items = [
     { to: '/team', label: 'Members', show: true },
+    { to: '/team/profiles', label: 'Target profiles', show: true },
     { to: '/team/tokens', label: 'Service tokens', show: roleCan(role, 'tokens.manage') },
     { to: '/outbox', label: 'Outbox', show: roleCan(role, 'outbox.read') },
   ].filter((i) => i.show);
