@@ -2,15 +2,10 @@
 import type { Transaction } from 'sequelize';
 import { TargetProfile } from '../models';
 import type { Profile } from '../../shared/bake/profile';
+import type { StoredProfileDto } from '../../shared/schemas/profiles';
 
-export interface StoredProfile {
-  id: string;
-  teamId: string;
-  profile: Profile;
-  position: number;
-  version: number;
-  updatedAt: string;
-}
+/** The API shape (shared with the client) is the stored shape. */
+export type StoredProfile = StoredProfileDto;
 
 function toStored(row: TargetProfile): StoredProfile {
   return {
