@@ -11,6 +11,7 @@ import { tokenRoutes } from './tokens/tokens.routes';
 import { outboxRoutes } from './outbox/outbox.routes';
 import { schemasRoutes } from './schemas/schemas.routes';
 import { profileRoutes } from './profiles/profiles.routes';
+import { packRoutes } from './packs/packs.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -30,6 +31,7 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(outboxRoutes(ctx));
   api.use(schemasRoutes());
   api.use(profileRoutes(ctx));
+  api.use(packRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

@@ -11,10 +11,13 @@ import { Invitation, initInvitation } from './invitation';
 import { PasswordReset, initPasswordReset } from './password-reset';
 import { ServiceToken, initServiceToken } from './service-token';
 import { TargetProfile, initTargetProfile } from './target-profile';
+import { Pack, initPack } from './pack';
+import { Curve, initCurve } from './curve';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
 export { TargetProfile };
+export { Pack, Curve };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -38,4 +41,10 @@ export function initModels(sequelize: Sequelize): void {
   // target profiles (issue 5)
   initTargetProfile(sequelize);
   TargetProfile.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
+  // packs and curves (issue 7)
+  initPack(sequelize);
+  initCurve(sequelize);
+  Pack.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
+  Curve.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
+  Pack.hasMany(Curve, { foreignKey: 'packId', as: 'curves' });
 }

@@ -4,11 +4,12 @@
  * into an empty database only; later features add their own demo rows here.
  */
 import type { AppContext } from '../context';
-import { Membership, Studio, TargetProfile, Team, User } from '../models';
+import { Curve, Membership, Pack, Studio, TargetProfile, Team, User } from '../models';
 import { hashPassword } from '../auth/password';
 import { newUserId } from '../auth/auth.service';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
 import { DEMO_PROFILES } from '../../shared/bake/profile';
+import { DEMO_PACKS } from './demo-packs';
 
 export const DEMO_STUDIO = { name: 'Corvid Lantern Games', slug: 'corvid-lantern' };
 export const DEMO_TEAMS = [
@@ -28,6 +29,11 @@ export async function seedDemoIfEmpty(ctx: AppContext): Promise<boolean> {
     // the brief's four targets (Console, Handheld, Mobile, Web) in every team
     for (const teamId of teamIds.values()) {
       for (const [position, spec] of DEMO_PROFILES.entries()) await TargetProfile.create({ teamId, name: spec.name, spec, position }, { transaction });
+    }
+    // the brief's five packs with their curves (issue 7)
+    for (const { team, curves, ...pack } of DEMO_PACKS) {
+      const row = await Pack.create({ ...pack, teamId: teamIds.get(team)! }, { transaction });
+      for (const [position, document] of curves.entries()) await Curve.create({ packId: row.id, name: document.name, document, position }, { transaction });
     }
     for (const [i, account] of accountHashes.length ? DEMO_ACCOUNTS.entries() : []) {
       const user = await User.create({ id: newUserId(), email: account.email, name: account.name, passwordHash: accountHashes[i]!, studioId: studio.id }, { transaction });

@@ -23,8 +23,21 @@ import { ROLES, type Role } from '../../shared/schemas/roles';
 import { createToken, revokeToken } from '../../server/tokens/tokens.service';
 import { insertInvitation } from '../../server/invitations/invitations.repository';
 import { createProfile } from '../../server/profiles/profiles.service';
+import { createCurve, createPack } from '../../server/packs/packs.service';
+import { DEMO_PACKS } from '../../server/seed/demo-packs';
 
 const matrixProfile = () => ({ tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
+
+const someone = { kind: 'anonymous' } as const;
+const matrixDoc = (name: string) => ({ ...DEMO_PACKS[0]!.curves[0]!, name });
+/** A fresh pack of UI Motion with `curves` curves (each caller gets its own). */
+async function matrixPack(team: string, curves = 1) {
+  const pack = await createPack(team, { name: `Matrix ${randomBytes(4).toString('hex')}`, description: '', frameRate: 60, tags: [] });
+  const ids: string[] = [];
+  for (let i = 0; i < curves; i++) ids.push((await createCurve(someone, team, pack.slug, matrixDoc(`curve-${i}`))).id);
+  return { slug: pack.slug, ids, url: `/api/teams/${team}/packs/${pack.slug}` };
+}
+const EDITORS = ['admin', 'lead', 'animator'] as const;
 
 const WHO = ['anonymous', ...ROLES, 'revokedToken', 'validToken', 'otherTeam'] as const;
 type Who = (typeof WHO)[number];
@@ -125,6 +138,35 @@ const MATRIX: Entry[] = [
     route: 'DELETE /api/teams/:teamId/profiles/:profileId',
     build: async (e) => ({ url: `/api/teams/${e.team}/profiles/${(await createProfile(e.team, { ...matrixProfile(), name: `Matrix ${randomBytes(4).toString('hex')}` })).id}` }),
     expect: forRoles(204, ['admin', 'engineer']),
+  },
+  // packs and curves (issue 7): members and the team's tokens read; curves.edit (admin, lead, animator) writes
+  { route: 'GET /api/teams/:teamId/packs', build: (e) => ({ url: `/api/teams/${e.team}/packs` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'POST /api/teams/:teamId/packs', build: (e) => ({ url: `/api/teams/${e.team}/packs`, body: { name: `Matrix ${randomBytes(4).toString('hex')}` } }), expect: forRoles(201, EDITORS) },
+  { route: 'GET /api/teams/:teamId/packs/:pack', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'PATCH /api/teams/:teamId/packs/:pack', build: async (e) => ({ url: (await matrixPack(e.team, 0)).url, body: { name: 'Renamed', archived: true } }), expect: forRoles(200, EDITORS) },
+  { route: 'GET /api/teams/:teamId/packs/:pack/curves', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions/curves` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/curves', build: async (e) => ({ url: `${(await matrixPack(e.team, 0)).url}/curves`, body: { document: matrixDoc('new-one') } }), expect: forRoles(201, EDITORS) },
+  {
+    route: 'POST /api/teams/:teamId/packs/:pack/reorder',
+    build: async (e) => { const p = await matrixPack(e.team, 2); return { url: `${p.url}/reorder`, body: { curveIds: [...p.ids].reverse() } }; },
+    expect: forRoles(200, EDITORS),
+  },
+  { route: 'GET /api/teams/:teamId/packs/:pack/curves/:curveId', build: async (e) => { const p = await matrixPack(e.team); return { url: `${p.url}/curves/${p.ids[0]}` }; }, expect: forRoles(200, ROLES, { token: 200 }) },
+  {
+    route: 'PUT /api/teams/:teamId/packs/:pack/curves/:curveId',
+    build: async (e) => { const p = await matrixPack(e.team); return { url: `${p.url}/curves/${p.ids[0]}`, body: { document: matrixDoc('curve-0'), revision: 1 } }; },
+    expect: forRoles(200, EDITORS),
+  },
+  { route: 'DELETE /api/teams/:teamId/packs/:pack/curves/:curveId', build: async (e) => { const p = await matrixPack(e.team); return { url: `${p.url}/curves/${p.ids[0]}` }; }, expect: forRoles(204, EDITORS) },
+  {
+    route: 'POST /api/teams/:teamId/packs/:pack/curves/:curveId/move',
+    build: async (e) => { const [a, b] = [await matrixPack(e.team), await matrixPack(e.team, 0)]; return { url: `${a.url}/curves/${a.ids[0]}/move`, body: { toPack: b.slug } }; },
+    expect: forRoles(200, EDITORS),
+  },
+  {
+    route: 'POST /api/teams/:teamId/packs/:pack/curves/:curveId/copy',
+    build: async (e) => { const [a, b] = [await matrixPack(e.team), await matrixPack(e.team, 0)]; return { url: `${a.url}/curves/${a.ids[0]}/copy`, body: { toPack: b.slug } }; },
+    expect: forRoles(201, EDITORS),
   },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },

@@ -2,6 +2,7 @@ import type { MigrationContext } from '../migrate';
 import * as m0001 from './0001-studios-and-teams';
 import * as m0002 from './0002-accounts';
 import * as m0003 from './0003-target-profiles';
+import * as m0004 from './0004-packs-and-curves';
 
 export interface Migration {
   name: string;
@@ -14,4 +15,5 @@ export const migrations: Migration[] = [
   { name: '0001-studios-and-teams', ...m0001 },
   { name: '0002-accounts', ...m0002 },
   { name: '0003-target-profiles', ...m0003 },
+  { name: '0004-packs-and-curves', ...m0004 },
 ];
