@@ -8,13 +8,16 @@ import { test, expect, type Page } from '@playwright/test';
 const SHOTS = `${import.meta.dirname}/../.tmp`;
 
 async function openFresh(page: Page) {
+  page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') console.log(`[browser ${m.type()}] ${m.text()}`); });
+  page.on('pageerror', (e) => console.log(`[page error] ${e.message}`));
+  page.on('worker', (w) => console.log(`[worker] ${w.url()}`));
   await page.goto('/editor');
   await page.evaluate(() => localStorage.clear());
   await page.reload();
   await expect(page.getByTestId('curve-canvas')).toBeVisible();
-  // every demo target has baked once
+  // every demo target has baked once (in a Web Worker; a loaded machine may take a while)
   for (const name of ['Console', 'Handheld', 'Mobile', 'Web']) {
-    await expect(page.getByTestId(`target-${name}`)).not.toHaveAttribute('aria-busy', 'true');
+    await expect(page.getByTestId(`target-${name}`)).not.toHaveAttribute('aria-busy', 'true', { timeout: 30_000 });
   }
 }
 
@@ -128,5 +131,57 @@ test('reduced motion: the preview waits for Play', async ({ browser }) => {
   await openFresh(page);
   await expect(page.getByText('Reduced motion is on')).toBeVisible();
   await expect(page.getByTestId('preview-play')).toHaveText('Play');
+  await ctx.close();
+});
+
+test('box selection, copy and paste at the playhead, double-click adds a key, the key card refuses a bad time', async ({ browser }) => {
+  const ctx = await browser.newContext({ reducedMotion: 'reduce', viewport: { width: 1440, height: 1000 } });
+  const page = await ctx.newPage();
+  await openFresh(page);
+  const k0 = await centre(page, 'key-0');
+  const k1 = await centre(page, 'key-1');
+  // a box around the first two keys, started on empty canvas
+  await drag(page, { x: k0.x - 20, y: k1.y - 25 }, { x: k1.x + 20, y: k0.y + 20 });
+  await expect(page.getByTestId('key-0')).toHaveAttribute('aria-pressed', 'true');
+  await expect(page.getByTestId('key-1')).toHaveAttribute('aria-pressed', 'true');
+  await expect(page.getByTestId('key-2')).toHaveAttribute('aria-pressed', 'false');
+  await expect(page.getByTestId('key-card')).toContainText('2 keys selected');
+  await page.getByTestId('cmd-copy').click();
+  await page.getByLabel('Scrub the preview time').fill('0.45');
+  await page.getByTestId('cmd-paste').click();
+  // the clip (0 s and 0.3 s) lands at 0.45 s, replacing the key there, and at 0.75 s
+  await expect(page.getByTestId('key-3')).toHaveAccessibleName('Key 4, time 0.75 s, value 1.06 progress');
+  await expect(page.getByTestId('key-2')).toHaveAccessibleName('Key 3, time 0.45 s, value 0 progress');
+  await page.keyboard.press('Control+z');
+  await expect(page.getByTestId('key-3')).toHaveCount(0);
+
+  // double-click on the curve between the first two keys adds a key on it
+  const at = await page.evaluate(([x0, x1]) => {
+    const path = document.querySelector('[data-testid=curve-path]') as SVGPathElement;
+    const svg = path.ownerSVGElement!;
+    const m = svg.getScreenCTM()!;
+    const target = (x0 + x1) / 2;
+    let lo = 0, hi = path.getTotalLength();
+    for (let i = 0; i < 40; i++) {
+      const mid = (lo + hi) / 2;
+      const p = path.getPointAtLength(mid).matrixTransform(m);
+      if (p.x < target) lo = mid; else hi = mid;
+    }
+    const p = path.getPointAtLength(lo).matrixTransform(m);
+    return { x: p.x, y: p.y };
+  }, [k0.x, k1.x]);
+  await page.mouse.dblclick(at.x, at.y);
+  await expect(page.getByTestId('key-3')).toHaveCount(1);
+  await expect(page.getByTestId('key-card')).toContainText('Key 2');
+  const added = Number(await page.getByTestId('card-time').inputValue());
+  expect(added).toBeGreaterThan(0.1);
+  expect(added).toBeLessThan(0.2);
+
+  // the key card: a time past the next key is refused, the message beside the field, the curve unchanged
+  await page.getByTestId('card-time').fill('5');
+  await page.getByTestId('card-time').press('Enter');
+  await expect(page.getByTestId('key-card').getByRole('alert')).toContainText("time must not be after the next key's time");
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName(new RegExp(`time ${added} s`));
+  await page.screenshot({ path: `${SHOTS}/editor-card-error.png` });
   await ctx.close();
 });

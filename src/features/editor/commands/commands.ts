@@ -4,6 +4,7 @@
  */
 import { addKeyAt, copyKeys, deleteKeys, moveKeys, pasteKeys } from '../store/edits';
 import type { EditorStoreApi } from '../store/editor-store';
+import { snapTime } from '../store/snap';
 import { zoomView } from '../store/view';
 import { matches, type KeyLike, type Shortcut } from './shortcut';
 
@@ -61,12 +62,14 @@ export const COMMANDS: readonly Command[] = [
     run: (api) => { const s = api.getState(); s.setClip(copyKeys(s.doc, s.selection)); },
   },
   {
-    id: 'paste', label: 'Paste keys at the playhead', group: 'Edit', keys: [{ key: 'v', mod: true }],
+    id: 'paste', label: 'Paste keys at the playhead (its nearest frame when snapping)', group: 'Edit', keys: [{ key: 'v', mod: true }],
     when: (api) => api.getState().clip !== null,
     run: (api) => {
       const s = api.getState();
       if (!s.clip) return;
-      const r = pasteKeys(s.doc, s.clip, s.playhead);
+      // at the playhead's nearest frame when frame snapping is on
+      const at = s.snapping.frames ? snapTime(s.playhead, s.doc.frameRate) : s.playhead;
+      const r = pasteKeys(s.doc, s.clip, at);
       s.edit(() => r.doc, r.indices, r.indices[0] ?? null);
     },
   },
@@ -100,11 +103,11 @@ export const COMMANDS: readonly Command[] = [
   { id: 'zoom-out', label: 'Zoom out', group: 'View', keys: [{ key: '-' }], when: () => true, run: (api) => zoomCentre(api, 1 / 1.25) },
   { id: 'fit', label: 'Fit the curve', group: 'View', keys: [{ key: 'Home' }], when: () => true, run: (api) => api.getState().fit() },
   {
-    id: 'snap-frames', label: 'Snap times to frames (on/off)', group: 'View', keys: [{ key: 'f', alt: true }], when: () => true,
+    id: 'snap-frames', label: 'Snap times to frames (on/off)', group: 'View', keys: [{ key: 'f', shift: true }], when: () => true,
     run: (api) => { const s = api.getState(); s.setSnapping({ frames: !s.snapping.frames }); },
   },
   {
-    id: 'snap-values', label: 'Snap values to round steps (on/off)', group: 'View', keys: [{ key: 'r', alt: true }], when: () => true,
+    id: 'snap-values', label: 'Snap values to round steps (on/off)', group: 'View', keys: [{ key: 'v', shift: true }], when: () => true,
     run: (api) => { const s = api.getState(); s.setSnapping({ values: !s.snapping.values }); },
   },
   {

@@ -22,7 +22,9 @@ import { useStore } from 'zustand';
 import { HelpSheet } from './help-sheet';
 import { Toolbar } from './toolbar';
 
-const CARD_W = 288;
+/** Key card width (w-80) and the room kept free around the key for its slope handles. */
+const CARD_W = 320;
+const CARD_GAP = 56;
 const SAVE_DELAY_MS = 250;
 
 function isField(t: EventTarget | null): boolean {
@@ -163,9 +165,12 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }:
           const k = doc.keys[primary];
           const x = toX(tf, k.time), y = toY(tf, k.value);
           if (x < tf.plot.x - 10 || x > tf.plot.x + tf.plot.w + 10) return null;
-          const left = x + 24 + CARD_W < width ? x + 24 : Math.max(0, x - 24 - CARD_W);
-          const top = Math.max(4, Math.min(y - 40, tf.plot.y + tf.plot.h - 250));
-          return <KeyCard position={{ left, top }} />;
+          // beside the key, past its handles: right if there is room, else left; below a key in the upper
+          // half of the plot and above one in the lower half, so the card never covers the key or its handles
+          const left = x + CARD_GAP + CARD_W < width ? x + CARD_GAP : Math.max(0, x - CARD_GAP - CARD_W);
+          const upper = y < tf.plot.y + tf.plot.h / 2;
+          const pos = upper ? { left, top: Math.max(0, y + 16) } : { left, bottom: Math.max(0, tf.plot.y + tf.plot.h + 30 - y + 16) };
+          return <KeyCard position={pos} />;
         }}
       </CurveCanvas>
       <div className="flex flex-col gap-3 lg:flex-row lg:items-start">
@@ -188,8 +193,14 @@ export interface CurveEditorProps {
 
 export function CurveEditor({ source, fallback, profiles, profilesLabel }: CurveEditorProps) {
   const [loaded, setLoaded] = useState<{ store: EditorStoreApi; version: number | null; note?: string } | null>(null);
-  const runner = useMemo(() => createBakeRunner(profiles), [profiles]);
-  useEffect(() => () => runner.dispose(), [runner]);
+  // the runner owns workers: made and ended by an effect (never in render or a memo), so an effect
+  // re-run or a remount never leaves the strip holding a disposed runner
+  const [runner, setRunner] = useState<BakeRunner | null>(null);
+  useEffect(() => {
+    const r = createBakeRunner(profiles);
+    setRunner(r);
+    return () => { r.dispose(); setRunner(null); };
+  }, [profiles]);
   useEffect(() => {
     let live = true;
     void source.load().then((r) => {
@@ -202,7 +213,7 @@ export function CurveEditor({ source, fallback, profiles, profilesLabel }: Curve
     });
     return () => { live = false; };
   }, [source, fallback]);
-  if (!loaded) return <p className="text-sm">Opening the curve…</p>;
+  if (!loaded || !runner) return <p className="text-sm">Opening the curve…</p>;
   return (
     <EditorProvider store={loaded.store}>
       {loaded.note && <p role="alert" className="mb-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">{loaded.note}</p>}

@@ -34,8 +34,8 @@ function NumberField({ label, unit, value, error, onCommit, testId }: {
   const [editing, setEditing] = useState(false);
   useEffect(() => { if (!editing && !error) setText(short(value)); }, [value, editing, error]);
   return (
-    <div className="grid grid-cols-[5.5rem_1fr] items-start gap-x-2">
-      <label htmlFor={id} className="pt-1 text-xs text-ink/70 dark:text-paper/70">{label}</label>
+    <div className="min-w-0">
+      <label htmlFor={id} className="block text-[11px] text-ink/70 dark:text-paper/70">{label}</label>
       <div>
         <div className="flex items-center gap-1">
           <input id={id} data-testid={testId} inputMode="decimal" value={text} aria-invalid={!!error} aria-describedby={error ? `${id}-err` : undefined}
@@ -47,7 +47,7 @@ function NumberField({ label, unit, value, error, onCommit, testId }: {
               if (e.key === 'Escape') { setText(short(value)); e.stopPropagation(); }
             }}
             className={`w-full min-w-0 rounded-sm border bg-card px-1.5 py-0.5 font-mono text-sm dark:bg-night ${error ? 'border-brick' : 'border-grid-major dark:border-night-line'}`} />
-          {unit && <span className="shrink-0 font-mono text-xs text-ink/60 dark:text-paper/60">{unit}</span>}
+          {unit && <span className="shrink-0 font-mono text-[10px] text-ink/60 dark:text-paper/60">{unit}</span>}
         </div>
         {error && <p id={`${id}-err`} role="alert" className="mt-0.5 text-xs text-brick dark:text-[#e07a6a]">{error}</p>}
       </div>
@@ -60,8 +60,8 @@ function SelectField({ label, value, options, onChange, testId, error }: {
 }) {
   const id = useId();
   return (
-    <div className="grid grid-cols-[5.5rem_1fr] items-start gap-x-2">
-      <label htmlFor={id} className="pt-1 text-xs text-ink/70 dark:text-paper/70">{label}</label>
+    <div className="min-w-0">
+      <label htmlFor={id} className="block text-[11px] text-ink/70 dark:text-paper/70">{label}</label>
       <div>
         <select id={id} data-testid={testId} value={value} onChange={(e) => onChange(e.target.value)}
           className="w-full rounded-sm border border-grid-major bg-card px-1 py-0.5 text-sm dark:border-night-line dark:bg-night">
@@ -73,7 +73,7 @@ function SelectField({ label, value, options, onChange, testId, error }: {
   );
 }
 
-export function KeyCard({ position }: { position: { left: number; top: number } }) {
+export function KeyCard({ position }: { position: { left: number; top?: number; bottom?: number } }) {
   const api = useEditorApi();
   const doc = useEditor((s) => s.doc);
   const primary = useEditor((s) => s.primary);
@@ -111,14 +111,14 @@ export function KeyCard({ position }: { position: { left: number; top: number } 
   const row = (node: ReactNode) => node;
   return (
     <section aria-label={`Key ${i + 1} card`} data-testid="key-card"
-      className="absolute z-10 w-72 rounded-md [will-change:transform] border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] dark:border-night-line dark:bg-night-card/95"
-      style={{ left: position.left, top: position.top }}
+      className="absolute z-10 w-80 rounded-md [will-change:transform] border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] dark:border-night-line dark:bg-night-card/95"
+      style={position}
       onPointerDown={(e) => e.stopPropagation()}>
       <header className="mb-2 flex items-baseline justify-between">
         <h2 className="text-sm font-semibold">Key {i + 1} <span className="font-normal text-ink/60 dark:text-paper/60">of {doc.keys.length}</span></h2>
         {count > 1 && <span className="text-xs text-ink/60 dark:text-paper/60">{count} keys selected</span>}
       </header>
-      <div className="grid gap-1.5">
+      <div className="grid grid-cols-2 gap-x-3 gap-y-1.5">
         <NumberField label="time" unit="s" value={key.time} error={errors.time} onCommit={numberKey('time', 'time')} testId="card-time" />
         <NumberField label="value" unit={unit} value={key.value} error={errors.value} onCommit={numberKey('value', 'value')} testId="card-value" />
         <NumberField label="in-slope" unit={`${unit}/s`} value={key.slopeIn} error={errors.slopeIn} onCommit={numberKey('slopeIn', 'in-slope')} testId="card-slope-in" />
@@ -131,8 +131,8 @@ export function KeyCard({ position }: { position: { left: number; top: number } 
         <SelectField label="in / out" value={key.slopes} options={['joined', 'split']} testId="card-slopes" error={errors.slopes}
           onChange={(v) => apply(patchKey(doc, i, v === 'joined' ? { slopes: 'joined', slopeIn: key.slopeOut } : { slopes: 'split' }), 'slopes')} />
         {seg && row(
-          <div className="mt-1 grid gap-1.5 border-t border-grid-minor pt-2 dark:border-night-line">
-            <p className="text-xs font-medium text-ink/70 dark:text-paper/70">Segment to key {i + 2}</p>
+          <div className="col-span-2 mt-1 grid grid-cols-2 gap-x-3 gap-y-1.5 border-t border-grid-minor pt-2 dark:border-night-line">
+            <p className="col-span-2 text-xs font-medium text-ink/70 dark:text-paper/70">Segment to key {i + 2}</p>
             <SelectField label="kind" value={seg.kind} options={SEGMENT_KINDS} testId="card-kind" error={errors.kind}
               onChange={(v) => apply(patchSegment(doc, i, segmentOfKind(doc, i, v as Segment['kind'])), 'kind')} />
             {seg.kind === 'shape' && seg.shape && (
@@ -146,10 +146,10 @@ export function KeyCard({ position }: { position: { left: number; top: number } 
                 ))}
               </>
             )}
-            {errors.bezier && <p role="alert" className="text-xs text-brick">{errors.bezier}</p>}
+            {errors.bezier && <p role="alert" className="col-span-2 text-xs text-brick">{errors.bezier}</p>}
           </div>,
         )}
-        {errors.other && <p role="alert" className="text-xs text-brick">{errors.other}</p>}
+        {errors.other && <p role="alert" className="col-span-2 text-xs text-brick">{errors.other}</p>}
       </div>
     </section>
   );

@@ -34,7 +34,11 @@ export function checkEdit(candidate: CurveDocument, i: number): EditCheck {
   const errors: FieldErrors = {};
   for (const iss of r.issues) {
     const f = fieldOf(iss.path, i);
-    if (!errors[f]) errors[f] = bare(iss.message, iss.path);
+    // the schema checks order on the later key; seen from the edited key it is "after the next key"
+    const msg = iss.path === `keys[${i + 1}].time`
+      ? `time must not be after the next key's time (${candidate.keys[i + 1].time} s)`
+      : bare(iss.message, iss.path);
+    if (!errors[f]) errors[f] = msg;
   }
   return { ok: false, errors };
 }
