@@ -185,3 +185,18 @@ test('box selection, copy and paste at the playhead, double-click adds a key, th
   await page.screenshot({ path: `${SHOTS}/editor-card-error.png` });
   await ctx.close();
 });
+
+test('signed in, the target strip uses the team's own target profiles instead of the demo targets', async ({ page }) => {
+  // demo account of the embedded default (see e2e/accounts.e2e.ts and server/seed/demo-accounts.ts)
+  await page.goto('/sign-in');
+  await page.getByLabel('Email').fill('animator@corvid-lantern.test');
+  await page.getByLabel('Password').fill('tidewright-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/team$/);
+  await page.getByRole('link', { name: 'Editor' }).click();
+  await expect(page.getByText(/target profiles of /)).toBeVisible();
+  await expect(page.getByText('demo targets')).toHaveCount(0);
+  // the seeded team profiles are the brief's four targets
+  await expect(page.getByTestId('target-Console')).not.toHaveAttribute('aria-busy', 'true', { timeout: 30_000 });
+  await expect(page.getByTestId('verdict-Console')).toHaveText(/pass|near|over/);
+});
