@@ -186,7 +186,7 @@ test('box selection, copy and paste at the playhead, double-click adds a key, th
   await ctx.close();
 });
 
-test('signed in, the target strip uses the team's own target profiles instead of the demo targets', async ({ page }) => {
+test("signed in, the target strip uses the team's own target profiles instead of the demo targets", async ({ page }) => {
   // demo account of the embedded default (see e2e/accounts.e2e.ts and server/seed/demo-accounts.ts)
   await page.goto('/sign-in');
   await page.getByLabel('Email').fill('animator@corvid-lantern.test');
