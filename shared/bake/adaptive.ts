@@ -10,8 +10,9 @@
  *    galloping (double while the measured single-interval error meets the target) and bisection (10
  *    steps) find the widest next interval that the certified measure accepts.
  * 3. Merge: the knot before each forced knot is removed when the merged interval still passes.
- * 4. The whole encoded table is measured again; if it misses (rare), the target shrinks by 0.8 and
- *    placement repeats (at most 5 times).
+ * 4. Refine: every interval is certified with the full measure (exact, or sampled+bound); one that
+ *    misses is halved until it passes. For sampled sources the greedy step uses the cheap estimate
+ *    (no slack) against 0.95·tolerance, so refinement is rare.
  * Knot values/slopes are the source's exact one-sided values at the knot; unorm offset/scale come from
  * the source's value and slope ranges, so each interval is measured with its final encoding.
  */
@@ -49,10 +50,14 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
   const forcedTimes = breaks.filter((b) => b.order <= 1);
   const view = { kernel: profile.kernel, times: VIEW_T, values: VIEW_V, slopes: hermite ? VIEW_M : null };
   const opts = { tolerance: tol };
-  const intervalOpts = { tolerance: tol, includeEnd: false };
+  let hasSampled = false;
+  for (let i = 0; i < S.length - 1; i++) if (S[i + 1] > S[i] && !src.poly(i)) hasSampled = true;
+  // greedy placement uses the cheap estimate where the source is sampled; intervals are certified afterwards
+  const intervalOpts = { tolerance: tol, includeEnd: false, estimate: hasSampled };
+  const certOpts = { tolerance: tol, includeEnd: false };
 
-  let target = tol;
-  for (let attempt = 0; attempt < 5; attempt++) {
+  const target = hasSampled ? 0.95 * tol : tol;
+  {
     const knots: Knot[] = [];
     // one interval [a, b] (a: right values at a.src; b: left values at bSrc) within target?
     const intervalOk = (a: Knot, bStored: number, bSrc: number, bv: number, bm: number): boolean => {
@@ -79,8 +84,8 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
         if (!(h > 0)) {
           const i = segmentAt(src, a.src);
           const M = src.bound(i, boundOrder(profile.kernel), a.src, Math.min(S[i + 1], end.src));
-          h = widthForTolerance(profile.kernel, M, target / 2);
-          if (!Number.isFinite(h)) h = (end.src - a.src) / 2;
+          h = Number.isFinite(M) ? widthForTolerance(profile.kernel, M, target / 2) : NaN;
+          if (!(h > 0) || !Number.isFinite(h)) h = (end.src - a.src) / 2;
         }
         const span = end.src - a.src;
         h = Math.min(Math.max(h, span * 1e-6), span / 2);
@@ -107,7 +112,7 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
           }
           if (failure) break;
         }
-        for (let it = 0; it < 10 && hi - lo > 1e-4 * lo; it++) {
+        for (let it = 0; it < 10 && hi - lo > 2e-3 * lo; it++) {
           const mid = 0.5 * (lo + hi);
           if (okAt(mid) !== null) lo = mid; else hi = mid;
         }
@@ -129,12 +134,38 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       if (end.br) {
         const br = end.br;
         const rv = br.right >= 0 ? src.value(br.right, br.time, 0) : src.endValue;
-        const rm = hermite && br.right >= 0 ? src.value(br.right, br.time, 1) : endM;
+        let rm = hermite && br.right >= 0 ? src.value(br.right, br.time, 1) : endM;
+        if (hermite && br.left === br.right) {
+          // a joint inside one segment: one-sided slopes just beside it
+          const d = 1e-9 * Math.max(1, Math.abs(br.time));
+          leftKnot.m = src.value(br.left, br.time - d, 1);
+          rm = src.value(br.right, br.time + d, 1);
+        }
         if (br.order === 0 || hermite) knots.push({ stored: end.stored, src: end.src, v: rv, m: rm, forced: true });
         a = knots[knots.length - 1];
       }
     }
     if (failure) return failure;
+    // refine: certify every interval with the full measure; halve the ones that miss
+    let worst = 0, worstAt = A, cert = 0, sampled = false;
+    for (let k = 0; k + 1 < knots.length; ) {
+      const a0 = knots[k], b0 = knots[k + 1];
+      if (!(b0.stored > a0.stored)) { k++; continue; }
+      VIEW_T[0] = a0.stored; VIEW_T[1] = b0.stored;
+      VIEW_V[0] = rt(qv, a0.v); VIEW_V[1] = rt(qv, b0.v);
+      if (hermite) { VIEW_M[0] = rt(qm!, a0.m); VIEW_M[1] = rt(qm!, b0.m); }
+      const m = measureError(src, view, certOpts, a0.stored, b0.stored === Math.fround(B) ? B : b0.stored);
+      if (m.certified > tol) {
+        const t = Math.fround(0.5 * (a0.src + b0.src));
+        if (!(t > a0.stored && t < b0.stored)) return `curve "${src.name}": cannot prove ${tol.toPrecision(3)} near t = ${a0.src} s`;
+        knots.splice(k + 1, 0, { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightValue(src, t, 1) : 0, forced: false });
+        continue;
+      }
+      if (m.maxError > worst) { worst = m.maxError; worstAt = m.at; }
+      if (m.certified > cert) cert = m.certified;
+      if (m.method === 'sampled+bound') sampled = true;
+      k++;
+    }
     const n = knots.length;
     const times = new Float64Array(n), stored = new Float32Array(n), values = new Float64Array(n);
     const slopes = hermite ? new Float64Array(n) : null;
@@ -143,9 +174,12 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       if (slopes) slopes[k] = knots[k].m;
     }
     const table = assembleTable(profile, times, stored, values, slopes, qv, qm);
-    const measure = measureError(src, table, opts);
-    if (measure.certified <= tol) return { table, measure };
-    target *= 0.8;
+    // the end point itself (the last entry's value against the curve's end value)
+    const endErr = Math.abs(src.endValue - table.values[n - 1]);
+    if (endErr > worst) { worst = endErr; worstAt = B; }
+    if (endErr > cert) cert = endErr;
+    if (cert > tol) return `curve "${src.name}": the end value cannot be stored within ${tol.toPrecision(3)}`;
+    void opts;
+    return { table, measure: { maxError: worst, at: worstAt, certified: cert, method: sampled ? 'sampled+bound' : 'exact' } };
   }
-  return `curve "${src.name}": the adaptive table did not meet ${tol.toPrecision(3)} after 5 attempts`;
 }

@@ -50,12 +50,13 @@ export function absoluteTolerance(src: BakeSource, profile: Profile): number {
   return profile.tolerance.value * (R > 0 ? R : 1);
 }
 
-/** CSS output prints normalised values and positions with 9 decimals; keep that round-off inside the budget. */
-function cssMargin(src: BakeSource): number {
+/**
+ * CSS output prints normalised values and positions with 9 decimals (./outputs/css.ts): value round-off
+ * ≤ 0.5e-9·range; the position round-off (≤ 5e-12 of the duration) is kept inside 1e-6·tolerance.
+ */
+function cssMargin(src: BakeSource, tol: number): number {
   const r = sourceRange(src, 0);
-  const m = sourceRange(src, 1);
-  const D = src.times[src.times.length - 1] - src.times[0];
-  return 0.5e-9 * Math.max(r.max - r.min, 1e-300) + 0.5e-11 * D * Math.max(Math.abs(m.min), Math.abs(m.max)) * 100;
+  return 0.5e-9 * (r.max - r.min) + 1e-6 * tol;
 }
 
 export function bakeCurve(src: BakeSource, profile: Profile, opts: BakeOptions = {}): CurveBake {
@@ -63,7 +64,15 @@ export function bakeCurve(src: BakeSource, profile: Profile, opts: BakeOptions =
   const S = src.times;
   if (S.length < 2 || !(S[S.length - 1] > S[0])) return fail(`curve "${src.name}": the domain has zero length; nothing to bake`);
   let tol = absoluteTolerance(src, profile);
-  if (profile.output === 'css') tol -= cssMargin(src);
+  if (profile.output === 'css') tol -= cssMargin(src, tol);
+  if (profile.encoding === 'unorm8' || profile.encoding === 'unorm16') {
+    const r = sourceRange(src, 0);
+    const M = profile.encoding === 'unorm8' ? 255 : 65535;
+    const q = (r.max - r.min) / (2 * M);
+    if (q >= tol) {
+      return fail(`curve "${src.name}": ${profile.encoding} round-off over the value range ${(r.max - r.min).toPrecision(4)} is up to ${q.toPrecision(3)} (range/(2·${M})), not below the tolerance ${tol.toPrecision(3)}`);
+    }
+  }
   const breaks = findBreaks(src, 3);
   let table: Table, measure;
   try {

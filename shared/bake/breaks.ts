@@ -50,5 +50,22 @@ export function findBreaks(src: BakeSource, maxOrder = 3): Break[] {
     const vl = src.value(left, T[n], 0);
     if (differ(vl, src.endValue)) out.push({ time: T[n], order: 0, left, right: -1, valueLeft: vl, valueRight: src.endValue });
   }
+  if (src.cuts && src.cutOrders) {
+    for (let c = 0; c < src.cuts.length; c++) {
+      const t = src.cuts[c], order = src.cutOrders[c];
+      if (order > maxOrder) continue;
+      const i = segmentIndexInside(src, t);
+      if (i < 0) continue;
+      out.push({ time: t, order, left: i, right: i, valueLeft: src.value(i, t, 0), valueRight: src.value(i, t, 0) });
+    }
+    out.sort((a, b) => a.time - b.time || (a.right < 0 ? 1 : 0) - (b.right < 0 ? 1 : 0));
+  }
   return out;
+}
+
+/** Segment i with times[i] < t < times[i+1], or −1. */
+function segmentIndexInside(src: BakeSource, t: number): number {
+  const T = src.times;
+  for (let i = 0; i < T.length - 1; i++) if (T[i] < t && t < T[i + 1]) return i;
+  return -1;
 }

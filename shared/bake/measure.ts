@@ -12,7 +12,11 @@
  * - sampled+bound: otherwise the error g = f − p is sampled with n + 1 equally spaced points of step h';
  *   for |g''| ≤ M on the piece, max |g| ≤ max |g(sample)| + M·h'²/8 (linear-interpolation remainder,
  *   Burden & Faires §3.1, from memory). M = bound(f'') + max |p''|; h' is chosen so the slack is at
- *   most `slackFraction`·tolerance. Where the bound is not finite the piece is halved (up to 8 times).
+ *   most `slackFraction`·tolerance. A piece that would need more than `maxSamples` samples (or whose
+ *   bound is infinite: a joint or vertical tangent at its end) is halved, up to 24 times deep and 2000
+ *   times per measurement, so pieces
+ *   shrink toward the singular point; a piece still unbounded at that depth is certified by the
+ *   first-order argument of `sliver`.
  */
 import type { BakeSource } from './source';
 import { cubicAt, hermiteCoeffs, linearCoeffs, maxAbsCubic, MAX_SLOT, shiftCubic } from './poly';
@@ -36,8 +40,14 @@ export interface MeasureOptions {
   tolerance: number;
   /** Slack of the sampled pieces as a fraction of the tolerance (default 0.05). */
   slackFraction?: number;
-  /** Cap on samples per piece (default 4096). */
+  /** Samples per piece before it is halved instead (default 256). */
   maxSamples?: number;
+  /**
+   * Estimate only: sampled pieces are sampled at the spacing where the slack would equal the whole
+   * tolerance and no slack is added, so `certified` is a lower estimate (a count that fails an estimate
+   * surely fails). Exact pieces stay exact.
+   */
+  estimate?: boolean;
   /** Also compare the end value when the range reaches the domain's end (default true). */
   includeEnd?: boolean;
 }
@@ -63,6 +73,8 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
 let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
+/** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
+let splitBudget = 0;
 
 function record(err: number, at: number, cert: number): void {
   if (err > bestErr) { bestErr = err; bestAt = at; }
@@ -79,35 +91,72 @@ function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
   record(e, x0 + MAX_SLOT[1], e);
 }
 
-/** Sampled piece with the second-derivative slack. TAB holds the table cubic at origin x0. */
-function sampledPiece(src: BakeSource, i: number, x0: number, x1: number, slackAbs: number, maxSamples: number, depth: number): void {
+/** |f − p| at t (TAB holds the table cubic about `origin`). */
+function gAt(src: BakeSource, i: number, t: number, origin: number): number {
+  return Math.abs(src.value(i, t, 0) - cubicAt(TAB, t - origin));
+}
+
+/** max |p''| and max |p'| of the table cubic on [x0, x1] (linear in u for p''; p' bounded by |c1| + 2|c2|u + 3|c3|u²). */
+function tabM2(origin: number, x0: number, x1: number): number {
+  const u0 = x0 - origin, u1 = x1 - origin;
+  return Math.max(Math.abs(2 * TAB[2] + 6 * TAB[3] * u0), Math.abs(2 * TAB[2] + 6 * TAB[3] * u1));
+}
+function tabM1(origin: number, x1: number): number {
+  const u = Math.abs(x1 - origin);
+  return Math.abs(TAB[1]) + 2 * Math.abs(TAB[2]) * u + 3 * Math.abs(TAB[3]) * u * u;
+}
+
+/**
+ * A sliver [a, b] next to a point where the source's second derivative is unbounded:
+ * |g(t)| ≤ |g(a)| + (M1_f + M1_p)·(b − a) when the slope bound M1_f is finite; where the slope itself is
+ * unbounded (a vertical tangent, e.g. circ at its ends) the source is taken as monotone on the sliver, so
+ * |g| ≤ max(|g(a)|, |g(b)|) + |f(b) − f(a)| + M1_p·(b − a).
+ */
+function sliver(src: BakeSource, i: number, a: number, b: number, origin: number): void {
+  const ga = gAt(src, i, a, origin), gb = gAt(src, i, b, origin);
+  const w = b - a;
+  const M1 = src.bound(i, 1, a, b);
+  const p1 = tabM1(origin, Math.max(Math.abs(a - origin), Math.abs(b - origin)) + origin);
+  const base = Math.max(ga, gb);
+  const cert = Number.isFinite(M1)
+    ? Math.min(ga, gb) + (M1 + p1) * w
+    : base + Math.abs(src.value(i, b, 0) - src.value(i, a, 0)) + p1 * w;
+  record(base, ga >= gb ? a : b, Math.max(base, cert));
+}
+
+/** Sampled piece [x0, x1] with the second-derivative slack; TAB holds the table cubic about `origin`. */
+function sampledPiece(
+  src: BakeSource, i: number, x0: number, x1: number, origin: number, slackAbs: number, maxSamples: number, estimate: boolean, depth: number,
+): void {
   sampledUsed = true;
   const L = x1 - x0;
-  const tabM2 = Math.max(Math.abs(2 * TAB[2]), Math.abs(2 * TAB[2] + 6 * TAB[3] * L));
-  const M = src.bound(i, 2, x0, x1) + tabM2;
-  if (!Number.isFinite(M)) {
-    if (depth < 8) {
-      const xm = x0 + L / 2;
-      const c0 = TAB[0], c1 = TAB[1], c2 = TAB[2], c3 = TAB[3];
-      sampledPiece(src, i, x0, xm, slackAbs, maxSamples, depth + 1);
-      TAB[0] = c0; TAB[1] = c1; TAB[2] = c2; TAB[3] = c3;
-      shiftCubic(TAB, L / 2);
-      sampledPiece(src, i, xm, x1, slackAbs, maxSamples, depth + 1);
-      return;
+  const M = src.bound(i, 2, x0, x1) + tabM2(origin, x0, x1);
+  if (!estimate) {
+    const need = Number.isFinite(M) ? Math.ceil(L / Math.sqrt((8 * slackAbs) / M)) : Infinity;
+    if (need > maxSamples) {
+      if (depth < 24 && splitBudget > 0) {
+        splitBudget--;
+        // halve: near a joint or a vertical tangent the halves shrink toward it (graded subdivision)
+        const xm = x0 + L / 2;
+        sampledPiece(src, i, x0, xm, origin, slackAbs, maxSamples, estimate, depth + 1);
+        sampledPiece(src, i, xm, x1, origin, slackAbs, maxSamples, estimate, depth + 1);
+        return;
+      }
+      if (!Number.isFinite(M)) { sliver(src, i, x0, x1, origin); return; }
     }
   }
-  let n = 1;
-  if (M > 0 && Number.isFinite(M)) n = Math.min(maxSamples, Math.max(1, Math.ceil(L / Math.sqrt((8 * slackAbs) / M))));
-  else if (!Number.isFinite(M)) n = maxSamples;
-  const h = L / n;
+  const W = x1 - x0;
+  let n = estimate ? 32 : maxSamples;
+  if (M > 0 && Number.isFinite(M)) n = Math.min(estimate ? 64 : maxSamples, Math.max(1, Math.ceil(W / Math.sqrt((8 * slackAbs) / M))));
+  else if (M === 0) n = 1;
+  const h = W / n;
   let localMax = 0, localAt = x0;
   for (let j = 0; j <= n; j++) {
-    const u = j === n ? L : j * h;
-    const t = x0 + u;
-    const e = Math.abs(src.value(i, t, 0) - cubicAt(TAB, u));
+    const t = j === n ? x1 : x0 + j * h;
+    const e = gAt(src, i, t, origin);
     if (e > localMax) { localMax = e; localAt = t; }
   }
-  const slack = Number.isFinite(M) ? (M * h * h) / 8 : Infinity;
+  const slack = estimate ? 0 : Number.isFinite(M) ? (M * h * h) / 8 : Infinity;
   record(localMax, localAt, localMax + slack);
 }
 
@@ -120,14 +169,18 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   const ns = S.length - 1;
   const A = from ?? S[0];
   const B = to ?? S[ns];
+  const estimate = opts.estimate === true;
+  const tolAbs = opts.tolerance;
   const slackAbs = opts.tolerance * (opts.slackFraction ?? 0.05);
-  const maxSamples = opts.maxSamples ?? 4096;
+  const maxSamples = opts.maxSamples ?? 256;
   const K = tab.times;
   const nk = K.length;
-  bestErr = 0; bestAt = A; certified = 0; sampledUsed = false;
+  bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000;
   // first table region at A
   let k = -1;
   while (k + 1 < nk && K[k + 1] <= A) k++;
+  const cuts = src.cuts;
+  let c = 0;
   for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
     if (!(b > a)) continue;
@@ -138,15 +191,18 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
     let x0 = a;
     while (x0 < b) {
       const hi = k + 1 < nk ? K[k + 1] : Infinity;
-      const x1 = Math.min(b, hi);
+      let x1 = Math.min(b, hi);
+      if (cuts) {
+        while (c < cuts.length && cuts[c] <= x0) c++;
+        if (c < cuts.length && cuts[c] < x1) x1 = cuts[c];
+      }
       if (x1 > x0 && nextUpF32(x0) < x1) {
         tableCoeffs(tab, k, x0);
         if (exact) exactPiece(src, i, x0, x1);
-        else sampledPiece(src, i, x0, x1, slackAbs, maxSamples, 0);
+        else sampledPiece(src, i, x0, x1, x0, estimate ? tolAbs : slackAbs, maxSamples, estimate, 0);
       }
       if (x1 >= b) break;
       x0 = x1;
-      k++;
       while (k + 1 < nk && K[k + 1] <= x0) k++;
     }
   }

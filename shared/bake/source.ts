@@ -21,6 +21,12 @@ export interface BakeSource {
   bound(i: number, order: number, ta: number, tb: number): number;
   /** The curve's value at its end time (the last key's value; differs from the last segment's left limit after a step). */
   endValue: number;
+  /**
+   * Optional: times strictly inside segments where the segment's own function is not smooth (a shape's
+   * inner joint, a bezier's vertical tangent), sorted, with the lowest derivative order that breaks there.
+   */
+  cuts?: Float64Array;
+  cutOrders?: Uint8Array;
 }
 
 export function segmentCount(s: BakeSource): number {

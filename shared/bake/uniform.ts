@@ -5,9 +5,12 @@
  *    so a jump with J/2 > tolerance makes every uniform table fail: reported with the curve and the time.
  * 2. Start size from the a-priori bound: h = √(8·tol/2/M2) (linear) or (384·tol/2/M4)^¼ (hermite),
  *    half the budget kept for round-off; N0 = ⌈D/h⌉ + 1 (mapped to the sample-count rule).
- * 3. Measure the true (certified) error of the encoded table and gallop/bisect on the candidate index for
- *    the smallest N that meets the tolerance; then check the next 8 smaller candidates and step down
- *    while any of them also meets it (the error is not always monotone in N), so N − 1 … N − 8 all fail.
+ * 3. Gallop/bisect on the candidate index for the smallest N whose measured error meets the tolerance,
+ *    using the estimate measure (exact pieces exact; sampled pieces sampled without slack, a lower bound of
+ *    the true error, so a count it rejects surely fails); then check the next 8 smaller candidates and
+ *    step down while any passes (the error is not always monotone in N), so N − 1 … N − 8 all fail.
+ * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, try larger counts
+ *    (steps 1, 2, 4, …; at most 6 tries).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break).
  */
@@ -21,7 +24,7 @@ import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
 
-export const MAX_UNIFORM_ENTRIES = 65536;
+export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
 
 export interface UniformResult { table: Table; measure: ErrorMeasure; tried: Map<number, number> }
@@ -69,24 +72,34 @@ export function bakeUniform(
   const cand = candidates(profile.sampleCount, B - A, frameRate, MAX_UNIFORM_ENTRIES);
   if (typeof cand === 'string') return `curve "${src.name}": ${cand}`;
   if (cand.size === 0) return `curve "${src.name}": no entry count allowed by the sample-count rule`;
+  // tried: entry count → certified error (Infinity when only the estimate was run and it failed)
   const tried = new Map<number, number>();
+  const estimates = new Map<number, number>();
   const tables = new Map<number, { table: Table; measure: ErrorMeasure }>();
+  const estOpts = { tolerance: tol, estimate: true };
   const opts = { tolerance: tol };
+  const build = (n: number): Table | null => {
+    try { return uniformTable(src, profile, n, breaks); } catch { return null; }
+  };
+  // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
-    const seen = tried.get(n);
+    const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
-    let cert = Infinity;
-    try {
-      const table = uniformTable(src, profile, n, breaks);
-      const measure = measureError(src, table, opts);
-      cert = measure.certified;
-      tables.set(n, { table, measure });
-    } catch {
-      cert = Infinity;
-    }
-    tried.set(n, cert);
-    return cert <= tol;
+    const table = build(n);
+    const e = table ? measureError(src, table, estOpts).certified : Infinity;
+    estimates.set(n, e);
+    if (e > tol) tried.set(n, Infinity);
+    return e <= tol;
+  };
+  const certify = (idx: number): boolean => {
+    const n = cand.at(idx);
+    const table = build(n);
+    if (!table) { tried.set(n, Infinity); return false; }
+    const measure = measureError(src, table, opts);
+    tried.set(n, measure.certified);
+    tables.set(n, { table, measure });
+    return measure.certified <= tol;
   };
   // start size from the bound
   const M = derivativeBound(src, boundOrder(profile.kernel), A, B);
@@ -115,7 +128,7 @@ export function bakeUniform(
       if (ok(j)) hi = j;
       else {
         if (j === cand.size - 1) {
-          return `curve "${src.name}": no uniform table of at most ${cand.at(j)} entries stays within ${tol.toPrecision(3)} (smallest error ${Math.min(...tried.values()).toPrecision(3)})`;
+          return `curve "${src.name}": no uniform table of at most ${cand.at(j)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
         }
         lo = j; d *= 2;
       }
@@ -125,9 +138,18 @@ export function bakeUniform(
     const mid = (lo + hi) >> 1;
     if (ok(mid)) hi = mid; else lo = mid;
   }
-  // non-monotone guard: step down while one of the next smaller counts also passes
+  // non-monotone guard: step down while one of the next smaller counts also passes the estimate
   for (let j = hi - 1; j >= 0 && j >= hi - SCAN_BELOW; j--) {
     if (ok(j)) hi = j;
+  }
+  // certify; where the estimate passed but the proof does not, move to the next count
+  let step = 1, attempts = 0;
+  while (!certify(hi)) {
+    if (++attempts >= 6 || hi + 1 >= cand.size) {
+      return `curve "${src.name}": no uniform table up to ${cand.at(hi)} entries is provably within ${tol.toPrecision(3)} (certified ${tried.get(cand.at(hi))!.toPrecision(3)})`;
+    }
+    hi = Math.min(hi + step, cand.size - 1);
+    step *= 2;
   }
   const best = tables.get(cand.at(hi))!;
   return { table: best.table, measure: best.measure, tried };
