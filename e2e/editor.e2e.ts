@@ -8,9 +8,9 @@ import { test, expect, type Page } from '@playwright/test';
 const SHOTS = `${import.meta.dirname}/../.tmp`;
 
 async function openFresh(page: Page) {
-  page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') console.log(`[browser ${m.type()}] ${m.text()}`); });
+  // script errors are printed (a failing bake worker would show here); resource statuses are not (signed out, /api/me is 401)
+  page.on('console', (m) => { if (m.type() === 'error' && !m.text().startsWith('Failed to load resource')) console.log(`[browser error] ${m.text()}`); });
   page.on('pageerror', (e) => console.log(`[page error] ${e.message}`));
-  page.on('worker', (w) => console.log(`[worker] ${w.url()}`));
   await page.goto('/editor');
   await page.evaluate(() => localStorage.clear());
   await page.reload();
