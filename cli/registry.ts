@@ -7,4 +7,5 @@ import type { CliCommand } from './types';
 export const COMMANDS: Record<string, () => Promise<{ default: CliCommand }>> = {
   eval: () => import('./commands/eval'),
   fit: () => import('./commands/fit'),
+  bake: () => import('./commands/bake'),
 };
