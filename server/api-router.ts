@@ -12,6 +12,7 @@ import { outboxRoutes } from './outbox/outbox.routes';
 import { schemasRoutes } from './schemas/schemas.routes';
 import { profileRoutes } from './profiles/profiles.routes';
 import { packRoutes } from './packs/packs.routes';
+import { versionRoutes } from './versions/versions.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -32,6 +33,7 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(schemasRoutes());
   api.use(profileRoutes(ctx));
   api.use(packRoutes(ctx));
+  api.use(versionRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

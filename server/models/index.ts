@@ -13,11 +13,13 @@ import { ServiceToken, initServiceToken } from './service-token';
 import { TargetProfile, initTargetProfile } from './target-profile';
 import { Pack, initPack } from './pack';
 import { Curve, initCurve } from './curve';
+import { PackVersion, initPackVersion } from './pack-version';
+import { VersionArtifact, initVersionArtifact } from './version-artifact';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
 export { TargetProfile };
-export { Pack, Curve };
+export { Pack, Curve, PackVersion, VersionArtifact };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -47,4 +49,9 @@ export function initModels(sequelize: Sequelize): void {
   Pack.belongsTo(Team, { foreignKey: 'teamId', as: 'team' });
   Curve.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
   Pack.hasMany(Curve, { foreignKey: 'packId', as: 'curves' });
+  initPackVersion(sequelize);
+  initVersionArtifact(sequelize);
+  PackVersion.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
+  PackVersion.hasMany(VersionArtifact, { foreignKey: 'versionId', as: 'artifacts' });
+  VersionArtifact.belongsTo(PackVersion, { foreignKey: 'versionId', as: 'version' });
 }

@@ -25,6 +25,7 @@ import { insertInvitation } from '../../server/invitations/invitations.repositor
 import { createProfile } from '../../server/profiles/profiles.service';
 import { createCurve, createPack } from '../../server/packs/packs.service';
 import { DEMO_PACKS } from '../../server/seed/demo-packs';
+import { proposeVersion, type Storage } from '../../server/versions/versions.service';
 
 const matrixProfile = () => ({ tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
 
@@ -38,6 +39,12 @@ async function matrixPack(team: string, curves = 1) {
   return { slug: pack.slug, ids, url: `/api/teams/${team}/packs/${pack.slug}` };
 }
 const EDITORS = ['admin', 'lead', 'animator'] as const;
+/** A fresh pack with one proposed version (v1). */
+async function matrixVersion(e: Env) {
+  const p = await matrixPack(e.team);
+  const v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
+  return { url: `${p.url}/versions/${v.number}`, artifactId: v.artifacts[1]!.id };
+}
 
 const WHO = ['anonymous', ...ROLES, 'revokedToken', 'validToken', 'otherTeam'] as const;
 type Who = (typeof WHO)[number];
@@ -56,6 +63,7 @@ interface Entry {
 interface Env {
   team: string;
   adminId: string;
+  storage: Storage;
 }
 
 const PASSWORD = 'matrix password 1';
@@ -168,6 +176,15 @@ const MATRIX: Entry[] = [
     build: async (e) => { const [a, b] = [await matrixPack(e.team), await matrixPack(e.team, 0)]; return { url: `${a.url}/curves/${a.ids[0]}/copy`, body: { toPack: b.slug } }; },
     expect: forRoles(201, EDITORS),
   },
+  // pack versions (issue 7): members and tokens read and download; versions.propose (admin, lead, animator) proposes
+  { route: 'GET /api/teams/:teamId/packs/:pack/versions', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions/versions` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/versions', build: async (e) => ({ url: `${(await matrixPack(e.team)).url}/versions`, body: { changelog: 'matrix proposal' } }), expect: forRoles(201, ['admin', 'lead', 'animator']) },
+  { route: 'GET /api/teams/:teamId/packs/:pack/versions/:number', build: async (e) => ({ url: (await matrixVersion(e)).url }), expect: forRoles(200, ROLES, { token: 200 }) },
+  {
+    route: 'GET /api/teams/:teamId/packs/:pack/versions/:number/artifacts/:artifactId',
+    build: async (e) => { const v = await matrixVersion(e); return { url: `${v.url}/artifacts/${v.artifactId}` }; },
+    expect: forRoles(200, ROLES, { token: 200 }),
+  },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },
 ];
@@ -191,7 +208,7 @@ describe('authorization matrix', () => {
     }
     emails.otherTeam = uniqueEmail('matrix-other');
     await createPerson({ email: emails.otherTeam, password: PASSWORD, teams: { 'gameplay-feel': 'admin' } });
-    env = { team, adminId };
+    env = { team, adminId, storage: { s3: t.ctx.s3, bucket: t.config.s3.bucket } };
     validToken = (await createToken(team, { name: 'matrix valid' }, adminId)).secret;
     const revoked = await createToken(team, { name: 'matrix revoked' }, adminId);
     await revokeToken(team, revoked.token.id);

@@ -3,6 +3,7 @@ import * as m0001 from './0001-studios-and-teams';
 import * as m0002 from './0002-accounts';
 import * as m0003 from './0003-target-profiles';
 import * as m0004 from './0004-packs-and-curves';
+import * as m0005 from './0005-pack-versions';
 
 export interface Migration {
   name: string;
@@ -16,4 +17,5 @@ export const migrations: Migration[] = [
   { name: '0002-accounts', ...m0002 },
   { name: '0003-target-profiles', ...m0003 },
   { name: '0004-packs-and-curves', ...m0004 },
+  { name: '0005-pack-versions', ...m0005 },
 ];

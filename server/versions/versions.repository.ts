@@ -1,0 +1,57 @@
+/** Pack versions and their artifacts in PostgreSQL. The only module that touches PackVersion and VersionArtifact. */
+import { QueryTypes, type Transaction } from 'sequelize';
+import { PackVersion, User, VersionArtifact } from '../models';
+import type { ArtifactDto, ArtifactFormat, BakeSummary, VersionDto } from '../../shared/schemas/versions';
+
+function toArtifact(a: VersionArtifact): ArtifactDto {
+  return { id: a.id, profileName: a.profileName, format: a.format as ArtifactFormat, fileName: a.fileName, mediaType: a.mediaType, key: a.key, sha256: a.sha256, size: a.size };
+}
+
+async function toVersion(v: PackVersion, artifacts: VersionArtifact[], transaction?: Transaction): Promise<VersionDto> {
+  const user = v.proposedBy ? await User.findByPk(v.proposedBy, { transaction }) : null;
+  return {
+    id: v.id, packId: v.packId as string, number: v.number, changelog: v.changelog, state: v.state,
+    proposedBy: user ? { id: user.id, name: user.name } : null, curveCount: v.curveCount,
+    source: { key: v.sourceKey, sha256: v.sourceSha256, size: v.sourceSize }, bakeSummary: v.bakeSummary,
+    artifacts: artifacts.sort((a, b) => a.position - b.position).map(toArtifact), createdAt: v.createdAt.toISOString(),
+  };
+}
+
+export async function listVersions(packId: string): Promise<VersionDto[]> {
+  const rows = await PackVersion.findAll({ where: { packId }, order: [['number', 'DESC']] });
+  const arts = rows.length ? await VersionArtifact.findAll({ where: { versionId: rows.map((r) => r.id) } }) : [];
+  return Promise.all(rows.map((r) => toVersion(r, arts.filter((a) => a.versionId === r.id))));
+}
+
+export async function findVersion(packId: string, number: number): Promise<VersionDto | null> {
+  const row = await PackVersion.findOne({ where: { packId, number } });
+  if (!row) return null;
+  return toVersion(row, await VersionArtifact.findAll({ where: { versionId: row.id } }));
+}
+
+export interface NewVersion {
+  packId: string;
+  changelog: string;
+  proposedBy: string | null;
+  curveCount: number;
+  source: { key: string; sha256: string; size: number };
+  bakeSummary: BakeSummary[];
+  artifacts: Omit<ArtifactDto, 'id'>[];
+}
+
+/**
+ * Inserts the version and all its artifact rows in one transaction, numbered one past the pack's
+ * latest. The pack row is locked (SELECT … FOR UPDATE) so two proposals of one pack get v(n+1) and v(n+2).
+ */
+export async function insertVersion(v: NewVersion): Promise<VersionDto> {
+  return PackVersion.sequelize!.transaction(async (transaction) => {
+    await PackVersion.sequelize!.query('SELECT id FROM packs WHERE id = :id FOR UPDATE', { replacements: { id: v.packId }, type: QueryTypes.SELECT, transaction });
+    const last = (await PackVersion.max<number, PackVersion>('number', { where: { packId: v.packId }, transaction })) ?? 0;
+    const row = await PackVersion.create({
+      packId: v.packId, number: last + 1, changelog: v.changelog, proposedBy: v.proposedBy, curveCount: v.curveCount,
+      sourceKey: v.source.key, sourceSha256: v.source.sha256, sourceSize: v.source.size, bakeSummary: v.bakeSummary,
+    }, { transaction });
+    const arts = await VersionArtifact.bulkCreate(v.artifacts.map((a, position) => ({ ...a, versionId: row.id, position })), { transaction, returning: true });
+    return toVersion(row, arts, transaction);
+  });
+}

@@ -1,0 +1,53 @@
+import { Router } from 'express';
+import { pipeline } from 'node:stream/promises';
+import type { AppContext } from '../context';
+import { requireTeam, requireUser } from '../auth/require-role';
+import { principalOf, teamAccessOf } from '../auth/principal';
+import { uuidParam } from '../invitations/invitations.routes';
+import { validateBody } from '../http/validate';
+import { proposeVersionSchema } from '../../shared/schemas/versions';
+import * as versions from './versions.service';
+
+/**
+ * Pack versions: every member and the team's tokens (limited to their packs) read the manifests and
+ * download artifacts; admins, leads and animators (versions.propose) propose. The bake runs inside the
+ * propose request (see ./versions.service.ts).
+ */
+export function versionRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const base = '/teams/:teamId/packs/:pack/versions';
+  const storage = { s3: ctx.s3, bucket: ctx.config.s3.bucket };
+  const team = (res: Parameters<typeof teamAccessOf>[0]) => teamAccessOf(res).teamId;
+
+  // GET …/versions → { versions } newest first
+  router.get(base, requireTeam('team.read'), async (req, res) => {
+    res.json({ versions: await versions.listVersions(principalOf(res), team(res), String(req.params.pack)) });
+  });
+
+  // POST …/versions { changelog } → 201 { version } once the source and every artifact are stored
+  router.post(base, requireUser(), requireTeam('versions.propose'), validateBody(proposeVersionSchema), async (req, res) => {
+    const p = principalOf(res);
+    if (p.kind !== 'user') throw new Error('unreachable: requireUser lets only people through');
+    res.status(201).json({ version: await versions.proposeVersion(storage, p, team(res), String(req.params.pack), req.body.changelog, p.user.id) });
+  });
+
+  // GET …/versions/:number → { version } with its artifacts (size, SHA-256)
+  router.get(`${base}/:number`, requireTeam('team.read'), async (req, res) => {
+    res.json({ version: await versions.getVersion(principalOf(res), team(res), String(req.params.pack), Number(req.params.number)) });
+  });
+
+  // GET …/versions/:number/artifacts/:artifactId → the bytes, streamed from the bucket
+  router.get(`${base}/:number/artifacts/:artifactId`, requireTeam('artifacts.download'), async (req, res) => {
+    const a = await versions.openArtifact(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), uuidParam(String(req.params.artifactId)));
+    res.set({
+      'Content-Type': a.artifact.mediaType,
+      'Content-Length': String(a.artifact.size),
+      'Content-Disposition': `attachment; filename="${a.downloadName.replace(/[^\w.-]/g, '_')}"`,
+      'X-Content-SHA256': a.artifact.sha256,
+      'Cache-Control': 'private, max-age=31536000, immutable',
+    });
+    await pipeline(a.body, res);
+  });
+
+  return router;
+}
