@@ -39,6 +39,15 @@ test('drag a key: the key card and the target strip follow; undo returns; a relo
   await openFresh(page);
   const before = await page.getByTestId('error-Console').textContent();
   const key = await centre(page, 'key-1');
+  // Escape during a drag puts the key back and leaves nothing to undo
+  await page.mouse.move(key.x, key.y);
+  await page.mouse.down();
+  await page.mouse.move(key.x - 60, key.y + 40, { steps: 5 });
+  await expect(page.getByTestId('key-1')).not.toHaveAccessibleName(/time 0\.3 s, value 1\.06/);
+  await page.keyboard.press('Escape');
+  await page.mouse.up();
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName('Key 2, time 0.3 s, value 1.06 progress');
+  await expect(page.getByTestId('cmd-undo')).toBeDisabled();
   // the middle key of panel-slide-in sits at (0.3 s, 1.06); drag it left and down
   await drag(page, key, { x: key.x - 120, y: key.y + 90 });
   const card = page.getByTestId('key-card');

@@ -51,7 +51,7 @@ function PreviewObject({ doc, curve, t }: { doc: CurveDocument; curve: PreparedC
       const b = Math.max(0, Math.min(1, lo >= 0 && hi <= 1 ? v : n));
       // from the night ink to a warm white
       const c = (a: number, z: number) => Math.round(a + (z - a) * b);
-      return <circle cx={80} cy={60} r={26} fill={`rgb(${c(15, 255)} ${c(24, 244)} ${c(38, 214)})`} stroke="#1b2a41" strokeWidth={1} />;
+      return <circle cx={80} cy={60} r={26} fill={`rgb(${c(15, 255)} ${c(24, 244)} ${c(38, 214)})`} strokeWidth={1} className="stroke-ink dark:stroke-paper/60" />;
     }
     default: {
       const h = Math.max(0, Math.min(1, n)) * 80;
