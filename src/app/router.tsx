@@ -12,6 +12,9 @@ import { TeamPage } from '../pages/team-page';
 import { TokensPage } from '../pages/tokens-page';
 import { ProfilesPage } from '../pages/profiles-page';
 import { OutboxPage } from '../pages/outbox-page';
+import { PacksPage } from '../pages/packs-page';
+import { PackPage } from '../pages/pack-page';
+import { VersionPage } from '../pages/version-page';
 import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
 import { AppLayout } from './layout/app-layout';
 
@@ -37,6 +40,9 @@ export const routes: RouteObject[] = [
           { path: 'team/tokens', element: <TokensPage /> },
           { path: 'team/profiles', element: <ProfilesPage /> },
           { path: 'outbox', element: <OutboxPage /> },
+          { path: 'packs', element: <PacksPage /> },
+          { path: 'packs/:pack', element: <PackPage /> },
+          { path: 'packs/:pack/versions/:number', element: <VersionPage /> },
           { path: 'editor', element: <EditorPage /> },
           { path: '*', element: <NotFoundPage /> },
         ],

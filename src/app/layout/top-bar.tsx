@@ -5,6 +5,7 @@ import { TopBarAccountSlot } from './top-bar-account-slot';
 /** Sections of the product; Library, Profiles and the rest join this list as they arrive. */
 const NAV_ITEMS: readonly { to: string; label: string; end?: boolean }[] = [
   { to: '/', label: 'Home', end: true },
+  { to: '/packs', label: 'Library' },
   { to: '/editor', label: 'Editor' },
 ];
 

@@ -1,0 +1,112 @@
+import { test, expect, type Page } from '@playwright/test';
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+
+// Demo accounts of the embedded default (server/seed/demo-accounts.ts); packs seeded from the brief (server/seed/demo-packs.ts).
+const PASSWORD = 'tidewright-demo';
+const SHOTS = process.env.E2E_SCREENSHOT_DIR ?? '.tmp';
+
+/** Signs in and picks "UI Motion" in the top bar's team switcher (the animator is a viewer in Gameplay Feel). */
+async function signIn(page: Page, email: string, uiMotionRole: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('Email').fill(email);
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/team$/);
+  await page.getByLabel('Current team').selectOption({ label: `UI Motion · ${uiMotionRole}` });
+}
+
+const cardNames = (page: Page) => page.getByRole('list', { name: 'Curves' }).getByRole('heading', { level: 3 }).allTextContents();
+
+test('an animator opens a pack, sees its curve cards, filters them and reorders with the keyboard', async ({ page }) => {
+  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
+  await expect(page).toHaveURL(/\/packs$/);
+  const packs = page.getByRole('list', { name: 'Packs' });
+  await expect(packs.getByRole('link', { name: 'Menu transitions' })).toBeVisible();
+  await expect(packs.getByRole('link', { name: 'Audio fades' })).toBeVisible();
+  await page.screenshot({ path: `${SHOTS}/library-packs.png`, fullPage: true });
+
+  await packs.getByRole('link', { name: 'Menu transitions' }).click();
+  await expect(page).toHaveURL(/\/packs\/menu-transitions$/);
+  const curves = page.getByRole('list', { name: 'Curves' });
+  await expect(curves.getByRole('article')).toHaveCount(4);
+  // each card has its sparkline, an SVG path drawn from the curve
+  await expect(curves.getByRole('img', { name: /^panel-slide-in:/ })).toBeVisible();
+  expect(await curves.locator('svg path').first().getAttribute('d')).toMatch(/^M[\d.]+ [\d.]+L/);
+  expect(await cardNames(page)).toEqual(['panel-slide-in', 'button-press-scale', 'tab-fade', 'toast-drop']);
+  await page.screenshot({ path: `${SHOTS}/library-pack.png`, fullPage: true });
+
+  await page.getByLabel('Segment kind').selectOption('bezier');
+  expect(await cardNames(page)).toEqual(['tab-fade']);
+  await page.getByLabel('Segment kind').selectOption('');
+  await page.getByLabel('Drives').selectOption('scale');
+  expect(await cardNames(page)).toEqual(['button-press-scale']);
+  await page.getByLabel('Drives').selectOption('');
+
+  const later = page.getByRole('button', { name: 'Move later: panel-slide-in' });
+  await later.focus();
+  await page.keyboard.press('Enter');
+  await expect.poll(() => cardNames(page)).toEqual(['button-press-scale', 'panel-slide-in', 'tab-fade', 'toast-drop']);
+  await page.reload();
+  await expect.poll(() => cardNames(page)).toEqual(['button-press-scale', 'panel-slide-in', 'tab-fade', 'toast-drop']);
+  await page.getByRole('button', { name: 'Move earlier: panel-slide-in' }).click();
+  await expect.poll(() => cardNames(page)).toEqual(['panel-slide-in', 'button-press-scale', 'tab-fade', 'toast-drop']);
+});
+
+test('an animator is told which pack field is wrong, then creates and archives a pack', async ({ page }) => {
+  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await page.goto('/packs');
+  await page.getByRole('button', { name: 'New pack' }).click();
+  await page.getByLabel('Name').fill('Loading screens');
+  await page.getByLabel('Frame rate (fps)').fill('-5');
+  await page.getByRole('button', { name: 'Create pack' }).click();
+  await expect(page.locator('#pack-new-frame-rate-error')).toContainText('frameRate');
+  await page.getByLabel('Frame rate (fps)').fill('30');
+  await page.getByRole('textbox', { name: 'Tags' }).fill('ui, loading');
+  await page.getByRole('button', { name: 'Create pack' }).click();
+  await expect(page).toHaveURL(/\/packs\/loading-screens$/);
+  await expect(page.getByRole('heading', { level: 1, name: 'Loading screens' })).toBeVisible();
+  await page.getByRole('button', { name: 'Archive pack' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Loading screens (archived)' })).toBeVisible();
+  await page.goto('/packs');
+  await expect(page.getByRole('list', { name: 'Packs' }).getByRole('link', { name: 'Loading screens' })).toHaveCount(0);
+});
+
+test('a viewer reads the library without editing controls', async ({ page }) => {
+  await signIn(page, 'viewer@corvid-lantern.test', 'Viewer');
+  await page.goto('/packs/audio-fades');
+  await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(3);
+  await expect(page.getByRole('button', { name: /Move later/ })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Archive pack' })).toHaveCount(0);
+});
+
+test('an animator proposes a version and sees its bake per target and its downloads with SHA-256', async ({ page }) => {
+  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await page.goto('/packs/menu-transitions');
+  await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(4);
+  await page.getByRole('button', { name: 'Propose v1' }).click();
+  await expect(page.locator('#propose-changelog-error')).toContainText('changelog');
+  await page.getByLabel('Changelog').fill('First cut of the pause menu motion.');
+  await page.getByRole('button', { name: 'Propose v1' }).click();
+  await expect(page).toHaveURL(/\/packs\/menu-transitions\/versions\/1$/);
+  await expect(page.getByRole('heading', { level: 1, name: 'menu-transitions v1' })).toBeVisible();
+  const bake = page.getByRole('table', { name: 'Bake per target' });
+  for (const target of ['Console', 'Handheld', 'Mobile', 'Web']) await expect(bake.getByRole('rowheader', { name: target })).toBeVisible();
+  const artifacts = page.getByRole('table', { name: 'Artifacts' });
+  await expect(artifacts.getByRole('row')).toHaveCount(11); // header + source + 4 × (JSON, binary) + Web CSS
+  await page.screenshot({ path: `${SHOTS}/library-version.png`, fullPage: true });
+
+  const row = artifacts.getByRole('row', { name: /Console.*binary pack/ });
+  const shaPrefix = (await row.locator('td').nth(2).textContent())!.replace('…', '');
+  const fullSha = await row.locator('td').nth(2).locator('span').getAttribute('title');
+  expect(fullSha!.startsWith(shaPrefix)).toBe(true);
+  const [download] = await Promise.all([page.waitForEvent('download'), row.getByRole('link', { name: /Download/ }).click()]);
+  expect(download.suggestedFilename()).toBe('menu-transitions-v1-console.tgpk');
+  const bytes = readFileSync((await download.path())!);
+  expect(createHash('sha256').update(bytes).digest('hex')).toBe(fullSha);
+
+  await page.getByRole('link', { name: 'menu-transitions', exact: true }).click();
+  await expect(page.getByRole('list', { name: 'Versions' }).getByRole('link', { name: 'v1' })).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Propose v2' })).toBeVisible();
+});

@@ -1,0 +1,39 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiRequest } from '../../../lib/api-client';
+import type { VersionDto } from '../../../../shared/schemas/versions';
+
+const base = (teamId: string, slug: string) => `/api/teams/${teamId}/packs/${encodeURIComponent(slug)}/versions`;
+export const versionsQueryKey = (teamId: string, slug: string) => ['teams', teamId, 'packs', slug, 'versions'] as const;
+
+/** `GET …/packs/:slug/versions` → newest first. */
+export function versionsQueryOptions(teamId: string, slug: string) {
+  return queryOptions({
+    queryKey: versionsQueryKey(teamId, slug),
+    queryFn: ({ signal }) => apiRequest<{ versions: VersionDto[] }>(base(teamId, slug), { signal }).then((r) => r.versions),
+  });
+}
+
+export function useVersions(teamId: string | undefined, slug: string) {
+  return useQuery({ ...versionsQueryOptions(teamId ?? '', slug), enabled: Boolean(teamId) });
+}
+
+/** `GET …/versions/:number` → the version with its artifacts. */
+export function useVersion(teamId: string | undefined, slug: string, number: number) {
+  return useQuery({
+    queryKey: [...versionsQueryKey(teamId ?? '', slug), number] as const,
+    queryFn: ({ signal }) => apiRequest<{ version: VersionDto }>(`${base(teamId ?? '', slug)}/${number}`, { signal }).then((r) => r.version),
+    enabled: Boolean(teamId) && Number.isSafeInteger(number),
+  });
+}
+
+/** `POST …/versions { changelog }` → 201 once the source and every target's artifacts are stored. */
+export function useProposeVersion(teamId: string, slug: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (changelog: string) => apiRequest<{ version: VersionDto }>(base(teamId, slug), { method: 'POST', body: { changelog } }).then((r) => r.version),
+    onSettled: () => qc.invalidateQueries({ queryKey: versionsQueryKey(teamId, slug) }),
+  });
+}
+
+/** Where the browser downloads an artifact (the server streams it from the bucket). */
+export const artifactUrl = (teamId: string, slug: string, number: number, artifactId: string) => `${base(teamId, slug)}/${number}/artifacts/${artifactId}`;
