@@ -209,3 +209,22 @@ test("signed in, the target strip uses the team's own target profiles instead of
   await expect(page.getByTestId('target-Console')).not.toHaveAttribute('aria-busy', 'true', { timeout: 30_000 });
   await expect(page.getByTestId('verdict-Console')).toHaveText(/pass|near|over/);
 });
+
+test('shapes: the palette puts an elastic shape on a segment, then it converts to hermite keys within a tolerance', async ({ browser }) => {
+  const ctx = await browser.newContext({ reducedMotion: 'reduce', viewport: { width: 1440, height: 1000 } });
+  const page = await ctx.newPage();
+  await openFresh(page);
+  await page.getByTestId('example-menu').selectOption('menu-transitions/button-press-scale');
+  await page.getByTestId('key-1').click();
+  await expect(page.getByTestId('card-kind')).toHaveValue('shape');
+  await expect(page.getByTestId('shape-back')).toHaveAttribute('aria-pressed', 'true');
+  await page.getByTestId('shape-elastic').click();
+  await expect(page.getByTestId('shape-elastic')).toHaveAttribute('aria-pressed', 'true');
+  await page.screenshot({ path: `${SHOTS}/editor-shapes.png` });
+  await page.getByTestId('convert-tolerance').fill('0.0005');
+  await page.getByTestId('convert-to-keys').click();
+  await expect(page.getByTestId('convert-note')).toContainText(/took \d+ keys \(\d+ added\), largest error/);
+  await expect(page.getByTestId('card-kind')).toHaveValue('hermite');
+  await expect(page.getByTestId('key-3')).toHaveCount(1); // keys were added inside the segment
+  await ctx.close();
+});

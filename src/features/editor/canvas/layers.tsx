@@ -89,17 +89,22 @@ const KeyDot = memo(function KeyDot({ i, x, y, selected, name, onFocusKey }: {
   );
 });
 
+/** Above this many keys, keys far outside the view are left out of the DOM. */
+export const CULL_ABOVE = 2000;
+
 export const KeysLayer = memo(function KeysLayer({ keys, tf, selection, unit, onFocusKey }: {
   keys: readonly KeyView[]; tf: Transform; selection: readonly number[]; unit: string; onFocusKey: (i: number) => void;
 }) {
   const sel = useMemo(() => new Set(selection), [selection]);
   const { t0, t1, v0, v1 } = tf.view;
   const mt = (t1 - t0) * 0.02, mv = (v1 - v0) * 0.02;
+  // every key stays in the document (and in the Tab order) up to CULL_ABOVE keys; past that, keys
+  // far outside the view are not drawn, except selected ones
+  const cull = keys.length > CULL_ABOVE;
   return (
     <g aria-label="Keys" role="group">
       {keys.map((k) =>
-        // keys far outside the view are not drawn, except selected ones (they stay focusable)
-        sel.has(k.i) || (k.time >= t0 - mt && k.time <= t1 + mt && k.value >= v0 - mv && k.value <= v1 + mv) ? (
+        !cull || sel.has(k.i) || (k.time >= t0 - mt && k.time <= t1 + mt && k.value >= v0 - mv && k.value <= v1 + mv) ? (
           <KeyDot key={k.i} i={k.i} x={toX(tf, k.time)} y={toY(tf, k.value)} selected={sel.has(k.i)}
             name={keyName(k.i, k.time, k.value, unit)} onFocusKey={onFocusKey} />
         ) : null,

@@ -1,13 +1,14 @@
 /**
  * The key card: numeric fields for the selected key and the segment that follows it, floating next
- * to the key. Every change is checked with the shared schema (./validate-edit.ts); a rejected value
+ * to the key (a shape segment gets the shape palette and the conversion to hermite keys). Every change is checked with the shared schema (./validate-edit.ts); a rejected value
  * stays in its field with the schema's message beside it, and the document is not touched.
  */
 import { useEffect, useId, useState, type ReactNode } from 'react';
-import { SHAPE_DEFAULTS, SHAPE_FAMILIES, SLOPE_RULES, SEGMENT_KINDS, type CurveDocument, type Key, type Segment, type ShapeFamily } from '../../../../shared/curve';
+import { SHAPE_DEFAULTS, SLOPE_RULES, SEGMENT_KINDS, type CurveDocument, type Key, type Segment, type ShapeFamily } from '../../../../shared/curve';
 import { useEditor, useEditorApi } from '../store/editor-context';
 import { patchKey, patchSegment } from '../store/edits';
 import { short } from '../canvas/format';
+import { ConvertNoteLine, ConvertToKeys, ShapePalette, type ConvertNote } from './shape-palette';
 import { checkEdit, parseNumberField, type FieldErrors } from './validate-edit';
 
 const PARAMS_BY_FAMILY: Partial<Record<ShapeFamily, readonly ('overshoot' | 'amplitude' | 'period' | 'stiffness' | 'damping' | 'mass' | 'velocity')[]>> = {
@@ -78,8 +79,10 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
   const doc = useEditor((s) => s.doc);
   const primary = useEditor((s) => s.primary);
   const count = useEditor((s) => s.selection.length);
+  const valueStep = useEditor((s) => s.valueStep);
   const [errors, setErrors] = useState<FieldErrors>({});
-  useEffect(() => setErrors({}), [primary]);
+  const [note, setNote] = useState<ConvertNote | null>(null);
+  useEffect(() => { setErrors({}); setNote(null); }, [primary]);
   if (primary === null || primary >= doc.keys.length) return null;
   const i = primary;
   const key = doc.keys[i];
@@ -137,8 +140,9 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
               onChange={(v) => apply(patchSegment(doc, i, segmentOfKind(doc, i, v as Segment['kind'])), 'kind')} />
             {seg.kind === 'shape' && seg.shape && (
               <>
-                <SelectField label="shape" value={seg.shape.family} options={SHAPE_FAMILIES} testId="card-shape" error={errors.shape}
-                  onChange={(v) => apply(patchSegment(doc, i, { kind: 'shape', shape: { family: v as ShapeFamily, ease: seg.shape!.ease } }), 'shape')} />
+                <ShapePalette doc={doc} i={i} ease={seg.shape.ease}
+                  onPick={(shape) => apply(patchSegment(doc, i, { kind: 'shape', shape }), 'shape')} />
+                {errors.shape && <p role="alert" className="col-span-2 text-xs text-brick">{errors.shape}</p>}
                 <SelectField label="ease" value={seg.shape.ease} options={['in', 'out', 'in-out']} testId="card-ease"
                   onChange={(v) => apply(patchSegment(doc, i, { ...seg, shape: { ...seg.shape!, ease: v as 'in' | 'out' | 'in-out' } }), 'shape')} />
                 {(PARAMS_BY_FAMILY[seg.shape.family] ?? []).map((p) => (
@@ -146,6 +150,8 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
                 ))}
               </>
             )}
+            {(seg.kind === 'shape' || seg.kind === 'bezier') && <ConvertToKeys doc={doc} i={i} defaultTolerance={valueStep / 20} setNote={setNote} />}
+            <ConvertNoteLine note={note} />
             {errors.bezier && <p role="alert" className="col-span-2 text-xs text-brick">{errors.bezier}</p>}
           </div>,
         )}
