@@ -15,11 +15,12 @@ import { Pack, initPack } from './pack';
 import { Curve, initCurve } from './curve';
 import { PackVersion, initPackVersion } from './pack-version';
 import { VersionArtifact, initVersionArtifact } from './version-artifact';
+import { VersionReview, initVersionReview } from './version-review';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
 export { TargetProfile };
-export { Pack, Curve, PackVersion, VersionArtifact };
+export { Pack, Curve, PackVersion, VersionArtifact, VersionReview };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -54,4 +55,7 @@ export function initModels(sequelize: Sequelize): void {
   PackVersion.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
   PackVersion.hasMany(VersionArtifact, { foreignKey: 'versionId', as: 'artifacts' });
   VersionArtifact.belongsTo(PackVersion, { foreignKey: 'versionId', as: 'version' });
+  initVersionReview(sequelize);
+  PackVersion.hasMany(VersionReview, { foreignKey: 'versionId', as: 'reviews' });
+  VersionReview.belongsTo(PackVersion, { foreignKey: 'versionId', as: 'version' });
 }

@@ -44,3 +44,12 @@ export async function openObject(s3: S3Client, bucket: string, key: string): Pro
   const r = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
   return { body: r.Body as Readable, size: r.ContentLength };
 }
+
+/** The whole object, checked against the SHA-256 its key names (a corrupted object is an error, not data). */
+export async function readContentAddressed(s3: S3Client, bucket: string, key: string): Promise<Uint8Array> {
+  const r = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  const bytes = new Uint8Array(await r.Body!.transformToByteArray());
+  const expected = key.startsWith('sha256/') ? key.slice('sha256/'.length) : null;
+  if (expected && sha256Hex(bytes) !== expected) throw new Error(`stored object ${key} does not match its SHA-256`);
+  return bytes;
+}

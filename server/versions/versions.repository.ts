@@ -1,19 +1,29 @@
 /** Pack versions and their artifacts in PostgreSQL. The only module that touches PackVersion and VersionArtifact. */
 import { QueryTypes, type Transaction } from 'sequelize';
-import { PackVersion, User, VersionArtifact } from '../models';
-import type { ArtifactDto, ArtifactFormat, BakeSummary, VersionDto } from '../../shared/schemas/versions';
+import { PackVersion, User, VersionArtifact, VersionReview } from '../models';
+import type { ArtifactDto, ArtifactFormat, BakeSummary, ReviewDecision, ReviewDto, VersionDto } from '../../shared/schemas/versions';
 
 function toArtifact(a: VersionArtifact): ArtifactDto {
   return { id: a.id, profileName: a.profileName, format: a.format as ArtifactFormat, fileName: a.fileName, mediaType: a.mediaType, key: a.key, sha256: a.sha256, size: a.size };
 }
 
+async function person(id: string | null, transaction?: Transaction): Promise<{ id: string; name: string } | null> {
+  const u = id ? await User.findByPk(id, { transaction }) : null;
+  return u ? { id: u.id, name: u.name } : null;
+}
+
+async function reviewsOf(versionId: string, transaction?: Transaction): Promise<ReviewDto[]> {
+  const rows = await VersionReview.findAll({ where: { versionId }, order: [['createdAt', 'ASC']], transaction });
+  return Promise.all(rows.map(async (r) => ({ id: r.id, decision: r.decision, comment: r.comment, reviewer: await person(r.reviewerId, transaction), createdAt: r.createdAt.toISOString() })));
+}
+
 async function toVersion(v: PackVersion, artifacts: VersionArtifact[], transaction?: Transaction): Promise<VersionDto> {
-  const user = v.proposedBy ? await User.findByPk(v.proposedBy, { transaction }) : null;
+  const user = await person(v.proposedBy, transaction);
   return {
     id: v.id, packId: v.packId as string, number: v.number, changelog: v.changelog, state: v.state,
-    proposedBy: user ? { id: user.id, name: user.name } : null, curveCount: v.curveCount,
+    proposedBy: user, curveCount: v.curveCount,
     source: { key: v.sourceKey, sha256: v.sourceSha256, size: v.sourceSize }, bakeSummary: v.bakeSummary,
-    artifacts: artifacts.sort((a, b) => a.position - b.position).map(toArtifact), createdAt: v.createdAt.toISOString(),
+    artifacts: artifacts.sort((a, b) => a.position - b.position).map(toArtifact), reviews: await reviewsOf(v.id, transaction), createdAt: v.createdAt.toISOString(),
   };
 }
 
@@ -53,5 +63,19 @@ export async function insertVersion(v: NewVersion): Promise<VersionDto> {
     }, { transaction });
     const arts = await VersionArtifact.bulkCreate(v.artifacts.map((a, position) => ({ ...a, versionId: row.id, position })), { transaction, returning: true });
     return toVersion(row, arts, transaction);
+  });
+}
+
+const STATE_AFTER: Record<ReviewDecision, string> = { approve: 'approved', 'request-changes': 'changes-requested' };
+
+/** Records a review and moves the version's state, in one transaction. */
+export async function insertReview(packId: string, number: number, review: { reviewerId: string; decision: ReviewDecision; comment: string }): Promise<VersionDto | null> {
+  return PackVersion.sequelize!.transaction(async (transaction) => {
+    const v = await PackVersion.findOne({ where: { packId, number }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!v) return null;
+    await VersionReview.create({ versionId: v.id, ...review }, { transaction });
+    v.state = STATE_AFTER[review.decision];
+    await v.save({ transaction });
+    return toVersion(v, await VersionArtifact.findAll({ where: { versionId: v.id }, transaction }), transaction);
   });
 }

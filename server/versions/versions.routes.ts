@@ -4,8 +4,8 @@ import type { AppContext } from '../context';
 import { requireTeam, requireUser } from '../auth/require-role';
 import { principalOf, teamAccessOf } from '../auth/principal';
 import { uuidParam } from '../invitations/invitations.routes';
-import { validateBody } from '../http/validate';
-import { proposeVersionSchema } from '../../shared/schemas/versions';
+import { validateBody, validateQuery } from '../http/validate';
+import { compareQuerySchema, proposeVersionSchema, reviewSchema } from '../../shared/schemas/versions';
 import * as versions from './versions.service';
 
 /**
@@ -47,6 +47,19 @@ export function versionRoutes(ctx: AppContext): Router {
       'Cache-Control': 'private, max-age=31536000, immutable',
     });
     await pipeline(a.body, res);
+  });
+
+  // GET …/versions/:number/compare?against=<n> → { comparison } with the one before it by default
+  router.get(`${base}/:number/compare`, requireTeam('team.read'), validateQuery(compareQuerySchema), async (req, res) => {
+    const q = res.locals.query as { against?: number };
+    res.json({ comparison: await versions.compare(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), q.against) });
+  });
+
+  // POST …/versions/:number/reviews { decision: approve | request-changes, comment } → 201 { version } (leads, admins)
+  router.post(`${base}/:number/reviews`, requireUser(), requireTeam('versions.review'), validateBody(reviewSchema), async (req, res) => {
+    const p = principalOf(res);
+    if (p.kind !== 'user') throw new Error('unreachable: requireUser lets only people through');
+    res.status(201).json({ version: await versions.review(p, team(res), String(req.params.pack), Number(req.params.number), p.user.id, req.body) });
   });
 
   return router;

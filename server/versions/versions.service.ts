@@ -16,8 +16,10 @@ import { HttpError, badRequest, conflict, notFound } from '../http/errors';
 import { getPack } from '../packs/packs.service';
 import { listCurves } from '../packs/packs.repository';
 import { listProfiles } from '../profiles/profiles.repository';
-import { openObject, putContentAddressed } from '../storage/content-store';
-import type { ArtifactDto, VersionDto } from '../../shared/schemas/versions';
+import { openObject, putContentAddressed, readContentAddressed } from '../storage/content-store';
+import type { ArtifactDto, ReviewDecision, VersionComparison, VersionDto } from '../../shared/schemas/versions';
+import type { CurveDocument } from '../../shared/curve';
+import { compareVersions } from './compare-versions';
 import { buildVersion } from './build-artifacts';
 import * as repo from './versions.repository';
 
@@ -69,4 +71,29 @@ export async function openArtifact(storage: Storage, p: Principal, teamId: strin
   if (!artifact) throw notFound(`Version v${number} of "${slug}" has no such artifact.`);
   const { body } = await openObject(storage.s3, storage.bucket, artifact.key);
   return { artifact, downloadName: `${slug}-v${number}-${artifact.fileName}`, body };
+}
+
+async function sourceCurves(storage: Storage, v: VersionDto): Promise<CurveDocument[]> {
+  const bytes = await readContentAddressed(storage.s3, storage.bucket, v.source.key);
+  return (JSON.parse(new TextDecoder().decode(bytes)) as { curves: CurveDocument[] }).curves;
+}
+
+/** Compares version `number` with `against` (default: the one before it), from their stored sources. */
+export async function compare(storage: Storage, p: Principal, teamId: string, slug: string, number: number, against?: number): Promise<VersionComparison> {
+  const to = await getVersion(p, teamId, slug, number);
+  const base = against ?? number - 1;
+  if (base < 1) throw badRequest(`against: v${number} has no earlier version; name one to compare with`, { against: `against: v${number} has no earlier version` });
+  if (base === number) throw badRequest('against: choose a different version', { against: 'against: choose a different version' });
+  const from = await getVersion(p, teamId, slug, base);
+  const [a, b] = await Promise.all([sourceCurves(storage, from), sourceCurves(storage, to)]);
+  return compareVersions({ number: from.number, curves: a, bakeSummary: from.bakeSummary }, { number: to.number, curves: b, bakeSummary: to.bakeSummary });
+}
+
+/** A lead's review: approve, or request changes with a comment. Every review is kept. */
+export async function review(p: Principal, teamId: string, slug: string, number: number, reviewerId: string, input: { decision: ReviewDecision; comment: string }): Promise<VersionDto> {
+  const pack = await getPack(p, teamId, slug);
+  await getVersion(p, teamId, slug, number);
+  const v = await repo.insertReview(pack.id, number, { reviewerId, ...input });
+  if (!v) throw notFound(`Pack "${slug}" has no version v${number}.`);
+  return v;
 }

@@ -53,5 +53,55 @@ export interface VersionDto {
   source: { key: string; sha256: string; size: number };
   bakeSummary: BakeSummary[];
   artifacts: ArtifactDto[];
+  /** Oldest first; the state follows the latest. */
+  reviews: ReviewDto[];
   createdAt: string;
 }
+
+export const REVIEW_DECISIONS = ['approve', 'request-changes'] as const;
+export type ReviewDecision = (typeof REVIEW_DECISIONS)[number];
+
+export interface ReviewDto {
+  id: string;
+  decision: ReviewDecision;
+  comment: string;
+  reviewer: { id: string; name: string } | null;
+  createdAt: string;
+}
+
+/** A review: approving may be silent; asking for changes must say which. */
+export const reviewSchema = z
+  .object({
+    decision: z.enum(REVIEW_DECISIONS, { error: 'decision: must be approve or request-changes' }),
+    comment: z.string({ error: 'comment: must be text' }).trim().max(5000, { error: 'comment: at most 5000 characters' }).default(''),
+  })
+  .superRefine((r, ctx) => {
+    if (r.decision === 'request-changes' && !r.comment) ctx.addIssue({ code: 'custom', path: ['comment'], message: 'comment: say what should change' });
+  });
+export type ReviewInput = z.input<typeof reviewSchema>;
+
+export interface CurveChange {
+  name: string;
+  unit: string;
+  /** max |new(t) − old(t)| over the union of both domains, by dense evaluation. */
+  maxDeviation: number;
+  /** Time (s) where it occurs. */
+  at: number;
+  domain: [number, number];
+  keysBefore: number;
+  keysAfter: number;
+}
+
+export interface VersionComparison {
+  from: number;
+  to: number;
+  added: string[];
+  removed: string[];
+  changed: CurveChange[];
+  unchanged: string[];
+  targets: { profile: string; bytesBefore: number | null; bytesAfter: number | null; worstRatioBefore: number | null; worstRatioAfter: number | null }[];
+}
+
+export const compareQuerySchema = z.object({
+  against: z.coerce.number({ error: 'against: must be a version number' }).int({ error: 'against: must be a whole version number' }).min(1, { error: 'against: must be at least 1' }).optional(),
+});

@@ -39,10 +39,11 @@ async function matrixPack(team: string, curves = 1) {
   return { slug: pack.slug, ids, url: `/api/teams/${team}/packs/${pack.slug}` };
 }
 const EDITORS = ['admin', 'lead', 'animator'] as const;
-/** A fresh pack with one proposed version (v1). */
-async function matrixVersion(e: Env) {
+/** A fresh pack with `count` proposed versions (v1 …); the URL names the last. */
+async function matrixVersion(e: Env, count = 1) {
   const p = await matrixPack(e.team);
-  const v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
+  let v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
+  for (let i = 1; i < count; i++) v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
   return { url: `${p.url}/versions/${v.number}`, artifactId: v.artifacts[1]!.id };
 }
 
@@ -185,6 +186,8 @@ const MATRIX: Entry[] = [
     build: async (e) => { const v = await matrixVersion(e); return { url: `${v.url}/artifacts/${v.artifactId}` }; },
     expect: forRoles(200, ROLES, { token: 200 }),
   },
+  { route: 'GET /api/teams/:teamId/packs/:pack/versions/:number/compare', build: async (e) => { const v = await matrixVersion(e, 2); return { url: `${v.url}/compare` }; }, expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/versions/:number/reviews', build: async (e) => ({ url: `${(await matrixVersion(e)).url}/reviews`, body: { decision: 'approve' } }), expect: forRoles(201, ['admin', 'lead']) },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },
 ];

@@ -4,6 +4,7 @@ import * as m0002 from './0002-accounts';
 import * as m0003 from './0003-target-profiles';
 import * as m0004 from './0004-packs-and-curves';
 import * as m0005 from './0005-pack-versions';
+import * as m0006 from './0006-version-reviews';
 
 export interface Migration {
   name: string;
@@ -18,4 +19,5 @@ export const migrations: Migration[] = [
   { name: '0003-target-profiles', ...m0003 },
   { name: '0004-packs-and-curves', ...m0004 },
   { name: '0005-pack-versions', ...m0005 },
+  { name: '0006-version-reviews', ...m0006 },
 ];
