@@ -169,7 +169,8 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }:
           // half of the plot and above one in the lower half, so the card never covers the key or its handles
           const left = x + CARD_GAP + CARD_W < width ? x + CARD_GAP : Math.max(0, x - CARD_GAP - CARD_W);
           const upper = y < tf.plot.y + tf.plot.h / 2;
-          const pos = upper ? { left, top: Math.max(0, y + 16) } : { left, bottom: Math.max(0, tf.plot.y + tf.plot.h + 30 - y + 16) };
+          // above a key the card may not reach past the canvas top (it scrolls inside instead)
+          const pos = upper ? { left, top: Math.max(0, y + 16) } : { left, bottom: Math.max(0, tf.plot.y + tf.plot.h + 30 - y + 16), maxHeight: Math.max(160, y - 16) };
           return <KeyCard position={pos} />;
         }}
       </CurveCanvas>

@@ -74,7 +74,7 @@ function SelectField({ label, value, options, onChange, testId, error }: {
   );
 }
 
-export function KeyCard({ position }: { position: { left: number; top?: number; bottom?: number } }) {
+export function KeyCard({ position }: { position: { left: number; top?: number; bottom?: number; maxHeight?: number } }) {
   const api = useEditorApi();
   const doc = useEditor((s) => s.doc);
   const primary = useEditor((s) => s.primary);
@@ -114,7 +114,7 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
   const row = (node: ReactNode) => node;
   return (
     <section aria-label={`Key ${i + 1} card`} data-testid="key-card"
-      className="absolute z-10 w-80 rounded-md [will-change:transform] border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] dark:border-night-line dark:bg-night-card/95"
+      className="absolute z-10 w-80 overflow-y-auto rounded-md [will-change:transform] border border-grid-major/80 bg-card/95 p-3 shadow-[0_2px_10px_rgb(27_42_65/0.14)] dark:border-night-line dark:bg-night-card/95"
       style={position}
       onPointerDown={(e) => e.stopPropagation()}>
       <header className="mb-2 flex items-baseline justify-between">
