@@ -110,3 +110,41 @@ test('an animator proposes a version and sees its bake per target and its downlo
   await expect(page.getByRole('list', { name: 'Versions' }).getByRole('link', { name: 'v1' })).toBeVisible();
   await expect(page.getByRole('button', { name: 'Propose v2' })).toBeVisible();
 });
+
+test('a lead compares v2 with v1 (a changed curve with its max deviation), requests changes, then approves', async ({ page, baseURL }) => {
+  await signIn(page, 'lead@corvid-lantern.test', 'Lead');
+  await page.goto('/packs/audio-fades');
+  await page.getByLabel('Changelog').fill('Audio fades as first mixed.');
+  await page.getByRole('button', { name: 'Propose v1' }).click();
+  await expect(page).toHaveURL(/\/packs\/audio-fades\/versions\/1$/);
+
+  // change one curve through the API (the curve editor is a separate page): music-fade-out ends at 0.2 instead of 0
+  const me = await (await page.request.get('/api/auth/me')).json();
+  const teamId = me.teams.find((t: { name: string }) => t.name === 'UI Motion').id;
+  const pack = await (await page.request.get(`/api/teams/${teamId}/packs/audio-fades`)).json();
+  const curve = pack.curves.find((c: { name: string }) => c.name === 'music-fade-out');
+  const document = { ...curve.document, keys: curve.document.keys.map((k: { value: number }, i: number) => (i === 1 ? { ...k, value: 0.2 } : k)) };
+  const saved = await page.request.put(`/api/teams/${teamId}/packs/audio-fades/curves/${curve.id}`, { data: { document, revision: curve.revision }, headers: { Origin: baseURL! } });
+  expect(saved.status()).toBe(200);
+
+  await page.getByRole('link', { name: 'audio-fades', exact: true }).click();
+  await page.getByLabel('Changelog').fill('Music fade-out stops at 20 %.');
+  await page.getByRole('button', { name: 'Propose v2' }).click();
+  await expect(page).toHaveURL(/\/packs\/audio-fades\/versions\/2$/);
+  await expect(page.getByText('Compared with v1: 0 added, 0 removed, 1 changed, 2 unchanged.')).toBeVisible();
+  const changed = page.getByRole('list', { name: 'Changed curves' });
+  // the end key moved from 0 to 0.2 and the sine in-out shape holds its end value: the largest deviation is 0.2 at t = 2 s
+  await expect(changed).toContainText('max deviation 2.00e-1 gain at t = 2.000 s');
+  await expect(changed.getByRole('img', { name: 'music-fade-out: v1 dashed, v2 solid' })).toBeVisible();
+
+  await page.getByLabel('Request changes').check();
+  await page.getByRole('button', { name: 'Send review' }).click();
+  await expect(page.locator('#review-comment-error')).toContainText('comment');
+  await page.getByLabel('Comment').fill('Keep the fade going to silence.');
+  await page.getByRole('button', { name: 'Send review' }).click();
+  await expect(page.getByRole('list', { name: 'Reviews' })).toContainText('requested changes: Keep the fade going to silence.');
+  await page.getByLabel('Approve').check();
+  await page.getByRole('button', { name: 'Send review' }).click();
+  await expect(page.getByText('State: approved')).toBeVisible();
+  await page.screenshot({ path: `${SHOTS}/library-review.png`, fullPage: true });
+});

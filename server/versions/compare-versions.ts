@@ -48,7 +48,7 @@ export function compareVersions(
     if (!o) continue;
     if (canonicalJson(o) === canonicalJson(c)) { unchanged.push(c.name); continue; }
     const d = maxDeviation(o, c);
-    changed.push({ name: c.name, unit: c.units.value, maxDeviation: d.maxDeviation, at: d.at, domain: [d.from, d.to], keysBefore: o.keys.length, keysAfter: c.keys.length });
+    changed.push({ name: c.name, unit: c.units.value, maxDeviation: d.maxDeviation, at: d.at, domain: [d.from, d.to], keysBefore: o.keys.length, keysAfter: c.keys.length, before: o, after: c });
   }
   const profiles = [...new Set([...from.bakeSummary.map((s) => s.profile), ...to.bakeSummary.map((s) => s.profile)])];
   const targets = profiles.map((profile) => {

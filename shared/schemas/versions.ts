@@ -4,6 +4,7 @@
  * web targets) are stored objects named by their SHA-256.
  */
 import { z } from 'zod';
+import type { CurveDocument } from '../curve/types';
 
 export const proposeVersionSchema = z.object({
   changelog: z
@@ -90,6 +91,9 @@ export interface CurveChange {
   domain: [number, number];
   keysBefore: number;
   keysAfter: number;
+  /** Both documents, for an overlay plot. */
+  before: CurveDocument;
+  after: CurveDocument;
 }
 
 export interface VersionComparison {

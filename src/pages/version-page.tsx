@@ -1,6 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
 import { Card } from '../components/card';
-import { useVersion, artifactUrl } from '../features/packs/api/versions';
+import { roleCan, type Role } from '../../shared/schemas/roles';
+import { useComparison, useVersion, artifactUrl } from '../features/packs/api/versions';
+import { ComparisonView } from '../features/packs/components/comparison-view';
+import { ReviewForm } from '../features/packs/components/review-form';
 import { ArtifactsTable } from '../features/packs/components/artifacts-table';
 import { BakeSummaryTable } from '../features/packs/components/bake-summary-table';
 import { RequireSignIn } from './require-sign-in';
@@ -8,11 +11,12 @@ import { RequireSignIn } from './require-sign-in';
 /** /packs/:pack/versions/:number: an immutable pack version, its bake per target and its downloads. */
 export function VersionPage() {
   const { pack = '', number = '' } = useParams();
-  return <RequireSignIn>{({ team }) => (team ? <VersionOfTeam teamId={team.id} slug={pack} number={Number(number)} /> : <p>You are not in a team yet.</p>)}</RequireSignIn>;
+  return <RequireSignIn>{({ team }) => (team ? <VersionOfTeam teamId={team.id} role={team.role} slug={pack} number={Number(number)} /> : <p>You are not in a team yet.</p>)}</RequireSignIn>;
 }
 
-function VersionOfTeam({ teamId, slug, number }: { teamId: string; slug: string; number: number }) {
+function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: Role; slug: string; number: number }) {
   const q = useVersion(teamId, slug, number);
+  const cmp = useComparison(teamId, slug, number, number > 1);
   if (q.isPending) return <p>Loading v{number}…</p>;
   if (q.isError) return <p role="alert">Could not load v{number} of “{slug}”: {q.error.message}</p>;
   const v = q.data;
@@ -25,6 +29,24 @@ function VersionOfTeam({ teamId, slug, number }: { teamId: string; slug: string;
       <p className="mt-1 text-sm text-ink/75 dark:text-paper/75">
         {v.state} · {v.curveCount} curves · proposed by {v.proposedBy?.name ?? 'someone'} on <time dateTime={v.createdAt}>{new Date(v.createdAt).toLocaleString()}</time>
       </p>
+      <Card className="mt-6 p-5">
+        <h2 className="text-lg font-semibold">Review</h2>
+        <p className="mt-1 text-sm">State: <span className="font-medium">{v.state}</span></p>
+        {v.reviews.length ? (
+          <ol aria-label="Reviews" className="mt-2 space-y-1 text-sm">
+            {v.reviews.map((r) => (
+              <li key={r.id}><span className="font-medium">{r.reviewer?.name ?? 'someone'}</span> {r.decision === 'approve' ? 'approved' : 'requested changes'}{r.comment ? `: ${r.comment}` : ''} · <time dateTime={r.createdAt}>{new Date(r.createdAt).toLocaleString()}</time></li>
+            ))}
+          </ol>
+        ) : <p className="mt-1 text-sm">No reviews yet.</p>}
+        <div className="mt-4">
+          {number === 1 ? <p className="text-sm">v1 is the first version: every curve is new.</p>
+            : cmp.isPending ? <p className="text-sm">Comparing with v{number - 1}…</p>
+            : cmp.isError ? <p role="alert">Could not compare: {cmp.error.message}</p>
+            : <ComparisonView c={cmp.data} />}
+        </div>
+        {roleCan(role, 'versions.review') ? <div className="mt-4 border-t border-grid-minor pt-4 dark:border-night-line"><ReviewForm teamId={teamId} slug={slug} number={v.number} /></div> : null}
+      </Card>
       <Card className="mt-6 p-5">
         <h2 className="text-lg font-semibold">Bake per target</h2>
         <div className="mt-3 overflow-x-auto"><BakeSummaryTable summary={v.bakeSummary} /></div>

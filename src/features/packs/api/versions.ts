@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '../../../lib/api-client';
-import type { VersionDto } from '../../../../shared/schemas/versions';
+import type { ReviewInput, VersionComparison, VersionDto } from '../../../../shared/schemas/versions';
 
 const base = (teamId: string, slug: string) => `/api/teams/${teamId}/packs/${encodeURIComponent(slug)}/versions`;
 export const versionsQueryKey = (teamId: string, slug: string) => ['teams', teamId, 'packs', slug, 'versions'] as const;
@@ -37,3 +37,21 @@ export function useProposeVersion(teamId: string, slug: string) {
 
 /** Where the browser downloads an artifact (the server streams it from the bucket). */
 export const artifactUrl = (teamId: string, slug: string, number: number, artifactId: string) => `${base(teamId, slug)}/${number}/artifacts/${artifactId}`;
+
+/** `GET …/versions/:number/compare[?against=n]` → what changed since the version before (or `against`). */
+export function useComparison(teamId: string | undefined, slug: string, number: number, enabled: boolean) {
+  return useQuery({
+    queryKey: [...versionsQueryKey(teamId ?? '', slug), number, 'compare'] as const,
+    queryFn: ({ signal }) => apiRequest<{ comparison: VersionComparison }>(`${base(teamId ?? '', slug)}/${number}/compare`, { signal }).then((r) => r.comparison),
+    enabled: Boolean(teamId) && enabled,
+  });
+}
+
+/** `POST …/versions/:number/reviews { decision, comment }` (leads and admins). */
+export function useReviewVersion(teamId: string, slug: string, number: number) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: ReviewInput) => apiRequest<{ version: VersionDto }>(`${base(teamId, slug)}/${number}/reviews`, { method: 'POST', body: input }).then((r) => r.version),
+    onSettled: () => qc.invalidateQueries({ queryKey: versionsQueryKey(teamId, slug) }),
+  });
+}
