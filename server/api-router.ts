@@ -13,6 +13,7 @@ import { schemasRoutes } from './schemas/schemas.routes';
 import { profileRoutes } from './profiles/profiles.routes';
 import { packRoutes } from './packs/packs.routes';
 import { versionRoutes } from './versions/versions.routes';
+import { channelRoutes } from './channels/channels.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -34,6 +35,7 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(profileRoutes(ctx));
   api.use(packRoutes(ctx));
   api.use(versionRoutes(ctx));
+  api.use(channelRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

@@ -16,11 +16,12 @@ import { Curve, initCurve } from './curve';
 import { PackVersion, initPackVersion } from './pack-version';
 import { VersionArtifact, initVersionArtifact } from './version-artifact';
 import { VersionReview, initVersionReview } from './version-review';
+import { Channel, ChannelMove, initChannels } from './channel';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
 export { TargetProfile };
-export { Pack, Curve, PackVersion, VersionArtifact, VersionReview };
+export { Pack, Curve, PackVersion, VersionArtifact, VersionReview, Channel, ChannelMove };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -58,4 +59,6 @@ export function initModels(sequelize: Sequelize): void {
   initVersionReview(sequelize);
   PackVersion.hasMany(VersionReview, { foreignKey: 'versionId', as: 'reviews' });
   VersionReview.belongsTo(PackVersion, { foreignKey: 'versionId', as: 'version' });
+  initChannels(sequelize);
+  Channel.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
 }

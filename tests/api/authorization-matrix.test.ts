@@ -25,7 +25,7 @@ import { insertInvitation } from '../../server/invitations/invitations.repositor
 import { createProfile } from '../../server/profiles/profiles.service';
 import { createCurve, createPack } from '../../server/packs/packs.service';
 import { DEMO_PACKS } from '../../server/seed/demo-packs';
-import { proposeVersion, type Storage } from '../../server/versions/versions.service';
+import { proposeVersion, review, type Storage } from '../../server/versions/versions.service';
 
 const matrixProfile = () => ({ tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
 
@@ -188,6 +188,18 @@ const MATRIX: Entry[] = [
   },
   { route: 'GET /api/teams/:teamId/packs/:pack/versions/:number/compare', build: async (e) => { const v = await matrixVersion(e, 2); return { url: `${v.url}/compare` }; }, expect: forRoles(200, ROLES, { token: 200 }) },
   { route: 'POST /api/teams/:teamId/packs/:pack/versions/:number/reviews', build: async (e) => ({ url: `${(await matrixVersion(e)).url}/reviews`, body: { decision: 'approve' } }), expect: forRoles(201, ['admin', 'lead']) },
+  // channels (issue 7): members and tokens read; channels.release (admin, lead) releases an approved version
+  { route: 'GET /api/teams/:teamId/packs/:pack/channels', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions/channels` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  {
+    route: 'PUT /api/teams/:teamId/packs/:pack/channels/:channel',
+    build: async (e) => {
+      const v = await matrixVersion(e);
+      const slug = v.url.split('/packs/')[1]!.split('/')[0]!;
+      await review(someone, e.team, slug, 1, e.adminId, { decision: 'approve', comment: '' });
+      return { url: v.url.replace(/versions\/1$/, 'channels/shipping'), body: { version: 1 } };
+    },
+    expect: forRoles(200, ['admin', 'lead']),
+  },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },
 ];

@@ -5,6 +5,7 @@ import * as m0003 from './0003-target-profiles';
 import * as m0004 from './0004-packs-and-curves';
 import * as m0005 from './0005-pack-versions';
 import * as m0006 from './0006-version-reviews';
+import * as m0007 from './0007-channels';
 
 export interface Migration {
   name: string;
@@ -20,4 +21,5 @@ export const migrations: Migration[] = [
   { name: '0004-packs-and-curves', ...m0004 },
   { name: '0005-pack-versions', ...m0005 },
   { name: '0006-version-reviews', ...m0006 },
+  { name: '0007-channels', ...m0007 },
 ];
