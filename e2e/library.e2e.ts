@@ -147,4 +147,22 @@ test('a lead compares v2 with v1 (a changed curve with its max deviation), reque
   await page.getByRole('button', { name: 'Send review' }).click();
   await expect(page.getByText('State: approved')).toBeVisible();
   await page.screenshot({ path: `${SHOTS}/library-review.png`, fullPage: true });
+
+  // release v2 on shipping, approve v1, then roll shipping back to v1: both moves are kept
+  await page.getByRole('link', { name: 'audio-fades', exact: true }).click();
+  const release = page.getByRole('form', { name: 'Release' });
+  await release.getByLabel('Channel').fill('shipping');
+  await release.getByLabel('Approved version').selectOption('2');
+  await release.getByRole('button', { name: 'Release' }).click();
+  await expect(page.getByRole('list', { name: 'Channels' })).toContainText('shipping → v2');
+  await page.goto('/packs/audio-fades/versions/1');
+  await page.getByRole('button', { name: 'Send review' }).click();
+  await expect(page.getByText('State: approved')).toBeVisible();
+  await page.getByRole('link', { name: 'audio-fades', exact: true }).click();
+  await release.getByLabel('Approved version').selectOption('1');
+  await release.getByRole('button', { name: 'Release' }).click();
+  await expect(page.getByRole('list', { name: 'Channels' })).toContainText('shipping → v1');
+  await expect(page.getByRole('list', { name: 'Releases of shipping' }).getByRole('listitem')).toHaveCount(2);
+  await expect(page.getByRole('list', { name: 'Releases of shipping' }).getByRole('listitem').first()).toContainText('v2 → v1 by Tamsin Okafor');
+  await page.screenshot({ path: `${SHOTS}/library-channels.png`, fullPage: true });
 });

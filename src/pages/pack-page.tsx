@@ -15,6 +15,7 @@ import { NO_FILTER, matchesFilter, moved, tagsOf, type CurveFilter } from '../fe
 import { useVersions } from '../features/packs/api/versions';
 import { ProposeVersionForm } from '../features/packs/components/propose-version-form';
 import { VersionsList } from '../features/packs/components/versions-list';
+import { ChannelsPanel } from '../features/packs/components/channels-panel';
 import { RequireSignIn } from './require-sign-in';
 
 /** /packs/:pack: one pack's curves as a grid of cards with sparklines, filters, reorder, move and copy. */
@@ -121,6 +122,11 @@ function PackOfTeam({ teamId, role, slug }: { teamId: string; role: Role; slug: 
             <ProposeVersionForm teamId={teamId} slug={slug} nextNumber={(versions.data[0]?.number ?? 0) + 1} onProposed={(v) => navigate(`/packs/${slug}/versions/${v.number}`)} />
           </div>
         ) : null}
+      </Card>
+      <Card className="mt-6 p-5">
+        <h2 className="text-lg font-semibold">Channels</h2>
+        <p className="mt-1 text-sm">Named pointers build servers pull, such as shipping and nightly. Moving one to an approved version is a release; moving it back is a roll-back.</p>
+        <div className="mt-3"><ChannelsPanel teamId={teamId} slug={slug} versions={versions.data ?? []} canRelease={roleCan(role, 'channels.release')} /></div>
       </Card>
     </div>
   );

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { packCreateSchema, packUpdateSchema, type PackDto } from '../../../../shared/schemas/packs';
-import { FormAlert, TextField, primaryButton, secondaryButton } from '../../../components/form-controls';
+import { FormAlert, TextField, inputClass, primaryButton, secondaryButton } from '../../../components/form-controls';
 import { checkForm, formMessage, serverFields, type FieldErrors } from '../../../lib/form-errors';
 import { useSavePack } from '../api/save-pack';
 
@@ -44,9 +44,9 @@ export function PackForm({ teamId, editing, onDone }: { teamId: string; editing:
         {editing ? (
           <TextField id={`${id}-slug`} label="Slug" value={editing.slug} disabled hint="Slugs never change: build servers and tokens name packs by them." />
         ) : (
-          <TextField id={`${id}-slug`} label="Slug (optional)" value={slug} onChange={(e) => setSlug(e.target.value)} error={fields.slug} className="font-mono" hint="Empty: made from the name, like loading-screens." />
+          <TextField id={`${id}-slug`} label="Slug (optional)" value={slug} onChange={(e) => setSlug(e.target.value)} error={fields.slug} className={`${inputClass} font-mono`} hint="Empty: made from the name, like loading-screens." />
         )}
-        <TextField id={`${id}-frame-rate`} label="Frame rate (fps)" inputMode="decimal" className="font-mono" value={frameRate} onChange={(e) => setFrameRate(e.target.value)} error={fields.frameRate} />
+        <TextField id={`${id}-frame-rate`} label="Frame rate (fps)" inputMode="decimal" className={`${inputClass} font-mono`} value={frameRate} onChange={(e) => setFrameRate(e.target.value)} error={fields.frameRate} />
         <TextField id={`${id}-tags`} label="Tags" value={tags} onChange={(e) => setTags(e.target.value)} error={fields.tags} hint="Comma-separated, like menu, ui." />
         <div className="sm:col-span-2">
           <TextField id={`${id}-description`} label="Description" value={description} onChange={(e) => setDescription(e.target.value)} error={fields.description} />
