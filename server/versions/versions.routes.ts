@@ -36,17 +36,24 @@ export function versionRoutes(ctx: AppContext): Router {
     res.json({ version: await versions.getVersion(principalOf(res), team(res), String(req.params.pack), Number(req.params.number)) });
   });
 
-  // GET …/versions/:number/artifacts/:artifactId → the bytes, streamed from the bucket
+  // GET …/versions/:number/artifacts/:artifactId → the bytes, streamed from the bucket. The ETag is the
+  // SHA-256, so a build server sending If-None-Match with the checksum it has gets 304 and no bytes.
   router.get(`${base}/:number/artifacts/:artifactId`, requireTeam('artifacts.download'), async (req, res) => {
-    const a = await versions.openArtifact(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), uuidParam(String(req.params.artifactId)));
+    const a = await versions.findArtifact(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), uuidParam(String(req.params.artifactId)));
+    const etag = `"${a.artifact.sha256}"`;
+    res.set({ ETag: etag, 'X-Content-SHA256': a.artifact.sha256, 'Cache-Control': 'private, max-age=31536000, immutable' });
+    const ifNoneMatch = String(req.headers['if-none-match'] ?? '').split(',').map((x) => x.trim().replace(/^W\//, ''));
+    if (ifNoneMatch.includes(etag)) {
+      res.status(304).end();
+      return;
+    }
+    const body = await a.open();
     res.set({
       'Content-Type': a.artifact.mediaType,
       'Content-Length': String(a.artifact.size),
       'Content-Disposition': `attachment; filename="${a.downloadName.replace(/[^\w.-]/g, '_')}"`,
-      'X-Content-SHA256': a.artifact.sha256,
-      'Cache-Control': 'private, max-age=31536000, immutable',
     });
-    await pipeline(a.body, res);
+    await pipeline(body, res);
   });
 
   // GET …/versions/:number/compare?against=<n> → { comparison } with the one before it by default

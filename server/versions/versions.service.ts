@@ -64,13 +64,12 @@ export async function proposeVersion(storage: Storage, p: Principal, teamId: str
   });
 }
 
-/** The artifact's bytes as a stream, with what the download answer needs. */
-export async function openArtifact(storage: Storage, p: Principal, teamId: string, slug: string, number: number, artifactId: string): Promise<{ artifact: ArtifactDto; downloadName: string; body: Readable }> {
+/** The artifact's manifest entry and download name; `open()` streams its bytes from the bucket. */
+export async function findArtifact(storage: Storage, p: Principal, teamId: string, slug: string, number: number, artifactId: string): Promise<{ artifact: ArtifactDto; downloadName: string; open: () => Promise<Readable> }> {
   const v = await getVersion(p, teamId, slug, number);
   const artifact = v.artifacts.find((a) => a.id === artifactId);
   if (!artifact) throw notFound(`Version v${number} of "${slug}" has no such artifact.`);
-  const { body } = await openObject(storage.s3, storage.bucket, artifact.key);
-  return { artifact, downloadName: `${slug}-v${number}-${artifact.fileName}`, body };
+  return { artifact, downloadName: `${slug}-v${number}-${artifact.fileName}`, open: async () => (await openObject(storage.s3, storage.bucket, artifact.key)).body };
 }
 
 async function sourceCurves(storage: Storage, v: VersionDto): Promise<CurveDocument[]> {

@@ -93,6 +93,10 @@ describe('pack versions API', () => {
     expect(res.headers['content-disposition']).toContain('menu-transitions-v1-console.tgpk');
     expect(sha256(new Uint8Array(res.body as Buffer))).toBe(a.sha256);
     expect((res.body as Buffer).length).toBe(a.size);
+    // a build server that already has these bytes: If-None-Match with the checksum → 304, nothing sent
+    const again = await request(t.app).get(`${url()}/1/artifacts/${a.id}`).set('Cookie', viewer).set('If-None-Match', `"${a.sha256}"`);
+    expect(again.status).toBe(304);
+    expect(again.headers.etag).toBe(`"${a.sha256}"`);
   });
 
   it('a second identical version reuses every stored object (no upload) and gets the next number', async () => {
