@@ -131,7 +131,10 @@ async function main(): Promise<number> {
           console.error((err as Error).message);
           failures.push('e2e (server did not start)');
         } finally {
+          // let the app close its pools before PostgreSQL goes away
+          const exited = new Promise<void>((r) => (app.exitCode !== null ? r() : app.once('exit', () => r())));
           app.kill('SIGTERM');
+          await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000))]);
         }
       }
     }
