@@ -79,3 +79,8 @@ export async function insertReview(packId: string, number: number, review: { rev
     return toVersion(v, await VersionArtifact.findAll({ where: { versionId: v.id }, transaction }), transaction);
   });
 }
+
+/** The e-mail address of a person (for review notifications). */
+export async function emailOf(userId: string): Promise<string | null> {
+  return (await User.findByPk(userId))?.email ?? null;
+}

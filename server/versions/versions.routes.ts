@@ -7,6 +7,7 @@ import { uuidParam } from '../invitations/invitations.routes';
 import { validateBody, validateQuery } from '../http/validate';
 import { compareQuerySchema, proposeVersionSchema, reviewSchema } from '../../shared/schemas/versions';
 import * as versions from './versions.service';
+import { notifyProposer } from './review-mail';
 
 /**
  * Pack versions: every member and the team's tokens (limited to their packs) read the manifests and
@@ -62,11 +63,15 @@ export function versionRoutes(ctx: AppContext): Router {
     res.json({ comparison: await versions.compare(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), q.against) });
   });
 
-  // POST …/versions/:number/reviews { decision: approve | request-changes, comment } → 201 { version } (leads, admins)
+  // POST …/versions/:number/reviews { decision: approve | request-changes, comment } → 201 { version } (leads,
+  // admins); the proposer gets an e-mail
   router.post(`${base}/:number/reviews`, requireUser(), requireTeam('versions.review'), validateBody(reviewSchema), async (req, res) => {
     const p = principalOf(res);
     if (p.kind !== 'user') throw new Error('unreachable: requireUser lets only people through');
-    res.status(201).json({ version: await versions.review(p, team(res), String(req.params.pack), Number(req.params.number), p.user.id, req.body) });
+    const slug = String(req.params.pack);
+    const version = await versions.review(p, team(res), slug, Number(req.params.number), p.user.id, req.body);
+    await notifyProposer(ctx, slug, version, p.user.id);
+    res.status(201).json({ version });
   });
 
   return router;

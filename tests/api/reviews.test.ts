@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { testApp } from '../support/app';
-import { ORIGIN, createPerson, signIn, teamId, uniqueEmail } from '../support/accounts';
+import { ORIGIN, createPerson, signIn, teamId, uniqueEmail, waitForMail } from '../support/accounts';
 import type { CurveDocument, Key, Segment } from '../../shared/curve';
 import type { CurveDto } from '../../shared/schemas/packs';
 import type { VersionComparison, VersionDto } from '../../shared/schemas/versions';
@@ -20,6 +20,7 @@ describe('review: compare versions, approve or request changes', () => {
   let animator = '';
   let lead = '';
   let base = '';
+  let animatorEmail = '';
 
   beforeAll(async () => {
     t = await testApp({ label: 'reviews', seed: true });
@@ -27,6 +28,7 @@ describe('review: compare versions, approve or request changes', () => {
     const cookies: string[] = [];
     for (const role of ['animator', 'lead'] as const) {
       const email = uniqueEmail(`reviews-${role}`);
+      if (role === 'animator') animatorEmail = email;
       await createPerson({ email, password: PASSWORD, teams: { 'ui-motion': role } });
       cookies.push(await signIn(t.app, email, PASSWORD));
     }
@@ -93,6 +95,11 @@ describe('review: compare versions, approve or request changes', () => {
     expect(v.state).toBe('approved');
     expect(v.reviews.map((r) => [r.decision, r.comment])).toEqual([['request-changes', 'The ramp peak is too high.'], ['approve', '']]);
     expect(v.reviews[0]!.reviewer).not.toBeNull();
+    // the proposer is told, through the real mail catcher
+    const asks = await waitForMail(animatorEmail, /asked for changes to v2 of review-test/);
+    expect(asks.text).toContain('Comment: The ramp peak is too high.');
+    expect(asks.text).toContain('/packs/review-test/versions/2');
+    await waitForMail(animatorEmail, /approved v2 of review-test/);
     expect((await request(t.app).get(`${base}/versions/2`).set('Cookie', animator)).body.version.state).toBe('approved');
     expect((await post(lead, `${base}/versions/9/reviews`, { decision: 'approve' })).status).toBe(404);
   });
