@@ -15,6 +15,7 @@ import { OutboxPage } from '../pages/outbox-page';
 import { PacksPage } from '../pages/packs-page';
 import { PackPage } from '../pages/pack-page';
 import { VersionPage } from '../pages/version-page';
+import { CurvePage } from '../pages/curve-page';
 import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
 import { AppLayout } from './layout/app-layout';
 
@@ -43,6 +44,7 @@ export const routes: RouteObject[] = [
           { path: 'packs', element: <PacksPage /> },
           { path: 'packs/:pack', element: <PackPage /> },
           { path: 'packs/:pack/versions/:number', element: <VersionPage /> },
+          { path: 'packs/:pack/curves/:curve', element: <CurvePage /> },
           { path: 'editor', element: <EditorPage /> },
           { path: '*', element: <NotFoundPage /> },
         ],

@@ -21,6 +21,8 @@ export interface Command {
 }
 
 const hasSelection = (api: EditorStoreApi) => api.getState().selection.length > 0;
+/** Edits are refused in a read-only (viewer's) editor. */
+const editable = (api: EditorStoreApi) => !api.getState().readOnly;
 
 /** Move the selection by whole frames and value steps (the anchor is the key card's key). */
 function nudge(api: EditorStoreApi, frames: number, steps: number): void {
@@ -38,15 +40,21 @@ function zoomCentre(api: EditorStoreApi, factor: number): void {
 
 function nudgeCommand(id: string, label: string, key: string, frames: number, steps: number): Command[] {
   return [
-    { id, label, group: 'Keys', keys: [{ key }], when: hasSelection, run: (api) => nudge(api, frames, steps) },
+    { id, label, group: 'Keys', keys: [{ key }], when: (api) => hasSelection(api) && editable(api), run: (api) => nudge(api, frames, steps) },
     {
-      id: `${id}-10`, label: `${label} ×10`, group: 'Keys', keys: [{ key, shift: true }], when: hasSelection,
+      id: `${id}-10`, label: `${label} ×10`, group: 'Keys', keys: [{ key, shift: true }], when: (api) => hasSelection(api) && editable(api),
       run: (api) => nudge(api, frames * 10, steps * 10),
     },
   ];
 }
 
 export const COMMANDS: readonly Command[] = [
+  {
+    // only where the page offers an explicit Save (a library curve the person may edit)
+    id: 'save', label: 'Save to the library', group: 'Edit', keys: [{ key: 's', mod: true }],
+    when: (api) => api.getState().saver !== null && !api.getState().drag,
+    run: (api) => api.getState().saver?.(),
+  },
   {
     id: 'undo', label: 'Undo', group: 'Edit', keys: [{ key: 'z', mod: true }],
     when: (api) => api.temporal.getState().pastStates.length > 0 && !api.getState().drag,
@@ -63,7 +71,7 @@ export const COMMANDS: readonly Command[] = [
   },
   {
     id: 'paste', label: 'Paste keys at the playhead (its nearest frame when snapping)', group: 'Edit', keys: [{ key: 'v', mod: true }],
-    when: (api) => api.getState().clip !== null,
+    when: (api) => api.getState().clip !== null && editable(api),
     run: (api) => {
       const s = api.getState();
       if (!s.clip) return;
@@ -75,12 +83,12 @@ export const COMMANDS: readonly Command[] = [
   },
   {
     id: 'delete', label: 'Delete keys', group: 'Edit', keys: [{ key: 'Delete' }, { key: 'Backspace' }],
-    when: (api) => hasSelection(api) && api.getState().doc.keys.length > 1,
+    when: (api) => hasSelection(api) && editable(api) && api.getState().doc.keys.length > 1,
     run: (api) => { const s = api.getState(); s.edit((d) => deleteKeys(d, s.selection), [], null); },
   },
   {
     id: 'add-key', label: 'Add a key at the playhead', group: 'Keys', keys: [{ key: 'Insert' }],
-    when: () => true,
+    when: editable,
     run: (api) => {
       const s = api.getState();
       const r = addKeyAt(s.doc, s.playhead);

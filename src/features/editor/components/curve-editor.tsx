@@ -19,7 +19,9 @@ import { fitView } from '../store/view';
 import { createBakeRunner, type BakeRunner } from '../target-strip/bake-runner';
 import { TargetStrip } from '../target-strip/target-strip';
 import { useStore } from 'zustand';
+import type { CurveDrafts } from '../library-source';
 import { HelpSheet } from './help-sheet';
+import { LibrarySavePanel } from './library-save';
 import { Toolbar } from './toolbar';
 
 /** Key card width (w-80) and the room kept free around the key for its slope handles. */
@@ -123,13 +125,39 @@ function ExampleMenu() {
   );
 }
 
-function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }: {
+/** The scratch editor's saving: kept in the source after edits settle, with its conflict banner. */
+function AutosavePanel({ source, initialVersion }: { source: EditorDocumentSource; initialVersion: number | null }) {
+  const api = useEditorApi();
+  const save = useAutosave(api, source, initialVersion);
+  const st = save.status;
+  return (
+    <>
+      <p className="text-xs text-ink/60 dark:text-paper/60" aria-live="polite" data-testid="save-status">
+        {st.kind === 'saving' ? 'keeping…' : st.kind === 'saved' ? (st.at ? `kept at ${st.at.toLocaleTimeString()}` : 'kept in this browser') : st.kind === 'error' ? `not kept: ${st.message}` : ''}
+      </p>
+      {st.kind === 'conflict' && (
+        <div role="alert" className="flex w-full flex-wrap items-center gap-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">
+          <span>Another tab changed this scratch curve since you opened it.</span>
+          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => save.takeTheirs(st.theirs, st.version)}>Load the other tab's curve</button>
+          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => void save.keepMine()}>Keep mine (overwrite)</button>
+        </div>
+      )}
+    </>
+  );
+}
+
+/** How a library curve is saved: explicitly, with drafts; `baseline` is the stored document. */
+export interface ExplicitSaving {
+  drafts: CurveDrafts;
+}
+
+function EditorBody({ source, runner, profiles, profilesLabel, initialVersion, explicit, readOnly }: {
   source: EditorDocumentSource; runner: BakeRunner; profiles: readonly Profile[]; profilesLabel: string; initialVersion: number | null;
+  explicit?: ExplicitSaving & { baseline: CurveDocument }; readOnly: boolean;
 }) {
   const api = useEditorApi();
   const root = useRef<HTMLDivElement>(null);
   useShortcuts(api, root);
-  const save = useAutosave(api, source, initialVersion);
   const doc = useEditor((s) => s.doc);
   const primary = useEditor((s) => s.primary);
   const overlayName = useEditor((s) => s.overlay);
@@ -138,7 +166,6 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }:
     const r = overlayName ? results[overlayName] : undefined;
     return r && r.ok ? { name: r.profile, tolerance: r.tolerance, entries: r.entries, dotTimes: r.dotTimes, dotValues: r.dotValues } : null;
   }, [overlayName, results]);
-  const st = save.status;
   return (
     <div ref={root} className="grid gap-3" data-testid="curve-editor">
       <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
@@ -146,17 +173,13 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion }:
           {source.label}: <span className="font-mono text-lg">{doc.name}</span>
         </h1>
         <p className="text-sm text-ink/70 dark:text-paper/70">{source.description}</p>
-        <p className="text-xs text-ink/60 dark:text-paper/60" aria-live="polite" data-testid="save-status">
-          {st.kind === 'saving' ? 'keeping…' : st.kind === 'saved' ? (st.at ? `kept at ${st.at.toLocaleTimeString()}` : 'kept in this browser') : st.kind === 'error' ? `not kept: ${st.message}` : ''}
-        </p>
-        <div className="ml-auto"><ExampleMenu /></div>
+        {readOnly ? (
+          <p className="text-xs font-medium" data-testid="read-only-note">Read only: your role in this team can look at curves but not change them.</p>
+        ) : explicit ? null : <AutosavePanel source={source} initialVersion={initialVersion} />}
+        {explicit ? null : <div className="ml-auto"><ExampleMenu /></div>}
       </header>
-      {st.kind === 'conflict' && (
-        <div role="alert" className="flex flex-wrap items-center gap-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">
-          <span>Another tab changed this scratch curve since you opened it.</span>
-          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => save.takeTheirs(st.theirs, st.version)}>Load the other tab's curve</button>
-          <button type="button" className="rounded-sm border px-2 py-0.5" onClick={() => void save.keepMine()}>Keep mine (overwrite)</button>
-        </div>
+      {explicit && !readOnly && initialVersion !== null && (
+        <LibrarySavePanel api={api} source={source} drafts={explicit.drafts} initialRevision={initialVersion} baseline={explicit.baseline} />
       )}
       <Toolbar />
       <CurveCanvas overlay={overlay}>
@@ -190,10 +213,14 @@ export interface CurveEditorProps {
   profiles: readonly Profile[];
   /** e.g. "demo targets" until the team's target profiles are wired in. */
   profilesLabel: string;
+  /** A library curve: saved with the Save button, unsaved edits kept as drafts. Omitted: saved as you edit. */
+  explicit?: ExplicitSaving;
+  /** A viewer's editor: nothing can be changed or saved. */
+  readOnly?: boolean;
 }
 
-export function CurveEditor({ source, fallback, profiles, profilesLabel }: CurveEditorProps) {
-  const [loaded, setLoaded] = useState<{ store: EditorStoreApi; version: number | null; note?: string } | null>(null);
+export function CurveEditor({ source, fallback, profiles, profilesLabel, explicit, readOnly = false }: CurveEditorProps) {
+  const [loaded, setLoaded] = useState<{ store: EditorStoreApi; version: number | null; baseline: CurveDocument; note?: string; failed?: string } | null>(null);
   // the runner owns workers: made and ended by an effect (never in render or a memo), so an effect
   // re-run or a remount never leaves the strip holding a disposed runner
   const [runner, setRunner] = useState<BakeRunner | null>(null);
@@ -206,19 +233,30 @@ export function CurveEditor({ source, fallback, profiles, profilesLabel }: Curve
     let live = true;
     void source.load().then((r) => {
       if (!live) return;
-      if (r.ok && r.loaded) setLoaded({ store: createEditorStore(r.loaded.doc), version: r.loaded.version });
-      else setLoaded({
-        store: createEditorStore(fallback), version: null,
+      if (r.ok && r.loaded) {
+        // a library curve's unsaved edits from an earlier visit, begun from this same revision
+        const draft = explicit && !readOnly ? explicit.drafts.read(r.loaded.version) : null;
+        setLoaded({
+          store: createEditorStore(draft ?? r.loaded.doc, { readOnly }), version: r.loaded.version, baseline: r.loaded.doc,
+          note: draft ? 'Your unsaved edits from before were restored from this browser; they are not in the library until you save.' : undefined,
+        });
+      } else if (explicit) {
+        // a library curve that could not be read: nothing to edit (and nothing that could be saved over it)
+        setLoaded({ store: createEditorStore(fallback, { readOnly: true }), version: null, baseline: fallback, failed: r.ok ? 'The library returned no curve.' : r.message });
+      } else setLoaded({
+        store: createEditorStore(fallback, { readOnly }), version: null, baseline: fallback,
         note: r.ok ? undefined : `${r.message} Starting from the example instead${r.issues?.length ? ` (${r.issues[0].message})` : ''}.`,
       });
-    });
+    }, (e: unknown) => { if (live) setLoaded({ store: createEditorStore(fallback, { readOnly: true }), version: null, baseline: fallback, failed: (e as Error).message }); });
     return () => { live = false; };
-  }, [source, fallback]);
+  }, [source, fallback, explicit, readOnly]);
+  if (loaded?.failed) return <p role="alert" className="rounded-md border border-brick bg-brick/10 p-2 text-sm">Could not open the curve: {loaded.failed}</p>;
   if (!loaded || !runner) return <p className="text-sm">Opening the curve…</p>;
   return (
     <EditorProvider store={loaded.store}>
-      {loaded.note && <p role="alert" className="mb-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">{loaded.note}</p>}
-      <EditorBody source={source} runner={runner} profiles={profiles} profilesLabel={profilesLabel} initialVersion={loaded.version} />
+      {loaded.note && <p role="alert" data-testid="draft-note" className="mb-2 rounded-md border border-amber bg-amber/10 p-2 text-sm">{loaded.note}</p>}
+      <EditorBody source={source} runner={runner} profiles={profiles} profilesLabel={profilesLabel} initialVersion={loaded.version}
+        explicit={explicit ? { ...explicit, baseline: loaded.baseline } : undefined} readOnly={readOnly} />
     </EditorProvider>
   );
 }

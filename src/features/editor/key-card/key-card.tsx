@@ -80,6 +80,7 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
   const primary = useEditor((s) => s.primary);
   const count = useEditor((s) => s.selection.length);
   const valueStep = useEditor((s) => s.valueStep);
+  const readOnly = useEditor((s) => s.readOnly);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [note, setNote] = useState<ConvertNote | null>(null);
   useEffect(() => { setErrors({}); setNote(null); }, [primary]);
@@ -121,6 +122,8 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
         <h2 className="text-sm font-semibold">Key {i + 1} <span className="font-normal text-ink/60 dark:text-paper/60">of {doc.keys.length}</span></h2>
         {count > 1 && <span className="text-xs text-ink/60 dark:text-paper/60">{count} keys selected</span>}
       </header>
+      {/* a viewer's card shows the numbers without letting them change */}
+      <fieldset disabled={readOnly} className="contents">
       <div className="grid grid-cols-2 gap-x-3 gap-y-1.5">
         <NumberField label="time" unit="s" value={key.time} error={errors.time} onCommit={numberKey('time', 'time')} testId="card-time" />
         <NumberField label="value" unit={unit} value={key.value} error={errors.value} onCommit={numberKey('value', 'value')} testId="card-value" />
@@ -157,6 +160,7 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
         )}
         {errors.other && <p role="alert" className="col-span-2 text-xs text-brick">{errors.other}</p>}
       </div>
+      </fieldset>
     </section>
   );
 }

@@ -40,6 +40,10 @@ export interface EditorState {
   overlay: string | null;
   drag: Drag | null;
   helpOpen: boolean;
+  /** A viewer's editor: every edit and drag is refused (the document only changes by `load`). */
+  readOnly: boolean;
+  /** Saves the document to its source when the page offers an explicit Save (the Save command runs it), else null. */
+  saver: (() => void) | null;
 }
 
 export interface EditorActions {
@@ -56,6 +60,7 @@ export interface EditorActions {
   setPlaying(p: boolean): void;
   setOverlay(name: string | null): void;
   setHelpOpen(open: boolean): void;
+  setSaver(saver: (() => void) | null): void;
   beginMove(anchor: number, indices: number[]): void;
   /** Offset of the pointer from where the move began, in curve units. */
   updateMove(dt: number, dv: number): void;
@@ -76,7 +81,7 @@ export function docValueStep(doc: CurveDocument): number {
   return valueStepFor(lo, hi);
 }
 
-export function createEditorStore(initial: CurveDocument): EditorStoreApi {
+export function createEditorStore(initial: CurveDocument, options: { readOnly?: boolean } = {}): EditorStoreApi {
   const store = createStore<EditorStore>()(
     temporal(
       (set, get) => {
@@ -95,10 +100,12 @@ export function createEditorStore(initial: CurveDocument): EditorStoreApi {
           overlay: null,
           drag: null,
           helpOpen: false,
+          readOnly: options.readOnly ?? false,
+          saver: null,
 
           edit(fn, selection, primary) {
             const s = get();
-            if (s.drag) return;
+            if (s.drag || s.readOnly) return;
             const doc = fn(s.doc);
             if (doc === s.doc && selection === undefined) return;
             const nextSel = selection ? sorted(selection) : s.selection.filter((i) => i < doc.keys.length);
@@ -123,10 +130,11 @@ export function createEditorStore(initial: CurveDocument): EditorStoreApi {
           setPlaying: (playing) => set({ playing }),
           setOverlay: (overlay) => set({ overlay }),
           setHelpOpen: (helpOpen) => set({ helpOpen }),
+          setSaver: (saver) => set({ saver }),
 
           beginMove(anchor, indices) {
             const s = get();
-            if (s.drag) return;
+            if (s.drag || s.readOnly) return;
             history().pause();
             set({ drag: { kind: 'move', start: s.doc, startSelection: s.selection, indices: sorted(indices), anchor } });
           },
@@ -137,7 +145,7 @@ export function createEditorStore(initial: CurveDocument): EditorStoreApi {
           },
           beginHandle(index, side) {
             const s = get();
-            if (s.drag) return;
+            if (s.drag || s.readOnly) return;
             history().pause();
             set({ drag: { kind: 'handle', start: s.doc, startSelection: s.selection, index, side } });
           },

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import type { CurveDto, PackDto } from '../../../../shared/schemas/packs';
 import { Card } from '../../../components/card';
 import { secondaryButton } from '../../../components/form-controls';
@@ -35,6 +36,10 @@ export function CurveCard(props: {
       <article aria-labelledby={`curve-${curve.id}`}>
         <Sparkline doc={d} />
         <h3 id={`curve-${curve.id}`} className="mt-2 font-mono text-sm font-semibold">{d.name}</h3>
+        {/* relative to /packs/:pack: the editor on this curve (read only without editing rights) */}
+        <Link to={`curves/${curve.id}`} className="text-xs underline" aria-label={`${canEdit ? 'Edit' : 'View'} in the editor: ${d.name}`}>
+          {canEdit ? 'Edit in the editor' : 'View in the editor'}
+        </Link>
         {d.description ? <p className="mt-1 text-xs text-ink/80 dark:text-paper/80">{d.description}</p> : null}
         <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-2 text-xs">
           <dt className="text-ink/65 dark:text-paper/65">drives</dt>
