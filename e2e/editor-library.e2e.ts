@@ -160,3 +160,51 @@ test('a viewer gets the curve read only: no Save, keys do not move', async ({ pa
   await expect(page.getByTestId('key-1')).toHaveAccessibleName(before);
   await expect(page.getByTestId('card-time')).toBeDisabled();
 });
+
+test('import and export: samples fitted within a tolerance, a pasted CSS easing, a download in a baker format', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 1000 });
+  watch(page);
+  await page.goto('/editor');
+  await page.evaluate(() => localStorage.clear());
+  await page.reload();
+  await expect(page.getByTestId('curve-canvas')).toBeVisible();
+  await page.getByText('Import and export').click();
+
+  // 61 samples of (1 − cos πt)/2 (d3-ease sinInOut's formula, REFERENCES.md)
+  const rows = Array.from({ length: 61 }, (_, i) => `${i / 60},${(1 - Math.cos(Math.PI * (i / 60))) / 2}`);
+  await page.getByLabel('Samples', { exact: true }).fill(['time,value', ...rows].join('\n'));
+  await page.getByLabel('Fit tolerance').fill('0.0001');
+  await page.getByRole('button', { name: 'Fit keys' }).click();
+  const fit = page.getByTestId('samples-fit');
+  await expect(fit).toContainText(/61 samples → \d+ keys · max error \d\.\d\de-\d+/);
+  await expect(fit).toContainText('within tolerance');
+  const keys = Number((await fit.textContent())!.match(/→ (\d+) keys/)![1]);
+  await fit.getByRole('button', { name: 'Use these keys' }).click();
+  await expect(page.getByTestId(`key-${keys - 1}`)).toHaveAccessibleName(/time 1 s, value 1 /);
+  await expect(page.getByTestId(`key-${keys}`)).toHaveCount(0);
+
+  // a broken sample line is named
+  await page.getByLabel('Samples', { exact: true }).fill('time,value\n0,0\n0.5,half\n');
+  await page.getByRole('button', { name: 'Fit keys' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'line 3' })).toContainText('value "half" is not a number');
+
+  await page.getByLabel('CSS easing').fill('cubic-bezier(0.42, 0, 0.58, 1)');
+  await page.getByRole('button', { name: 'Use this easing' }).click();
+  await expect(page.getByTestId('key-1')).toHaveAccessibleName(/^Key 2, time 1 s, value 1 /);
+  await expect(page.getByTestId('key-2')).toHaveCount(0);
+  // one undoable step: the fitted keys come back
+  await page.getByTestId('cmd-undo').click();
+  await expect(page.getByTestId(`key-${keys - 1}`)).toBeVisible();
+
+  await page.getByLabel('Export target').selectOption('Console');
+  await page.getByLabel('Export format').selectOption('glb');
+  const downloading = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Download' }).click();
+  const file = await downloading;
+  expect(file.suggestedFilename()).toMatch(/\.console\.glb$/);
+  await expect(page.getByTestId('export-note')).toContainText(/entries, \d+ B table, max error/);
+  await page.getByLabel('Export format').selectOption('css');
+  await page.getByRole('button', { name: 'Download' }).click();
+  await expect(page.getByTestId('export-note')).toContainText('CSS linear() needs a target profile with the linear kernel');
+  await page.screenshot({ path: `${SHOTS}/editor-import-export.png` });
+});

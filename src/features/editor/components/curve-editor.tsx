@@ -20,6 +20,7 @@ import { createBakeRunner, type BakeRunner } from '../target-strip/bake-runner';
 import { TargetStrip } from '../target-strip/target-strip';
 import { useStore } from 'zustand';
 import type { CurveDrafts } from '../library-source';
+import { ImportExportPanel } from '../import-export/import-export-panel';
 import { HelpSheet } from './help-sheet';
 import { LibrarySavePanel } from './library-save';
 import { Toolbar } from './toolbar';
@@ -182,6 +183,7 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion, e
         <LibrarySavePanel api={api} source={source} drafts={explicit.drafts} initialRevision={initialVersion} baseline={explicit.baseline} />
       )}
       <Toolbar />
+      <ImportExportPanel profiles={profiles} />
       <CurveCanvas overlay={overlay}>
         {(tf, width) => {
           if (primary === null || primary >= doc.keys.length) return null;

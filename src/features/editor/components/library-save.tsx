@@ -114,7 +114,7 @@ export function LibrarySavePanel({ api, source, drafts, initialRevision, baselin
   return (
     <div className="grid gap-2">
       <div className="flex flex-wrap items-center gap-3">
-        <button type="button" className={`${button} border-ink`} disabled={busy || dragging || !dirty} onClick={() => void save()} data-testid="save-button"
+        <button type="button" className={dirty ? 'rounded-sm border border-ink bg-ink px-3 py-0.5 text-sm font-medium text-paper disabled:opacity-40 dark:border-paper dark:bg-paper dark:text-ink' : `${button} px-3`} disabled={busy || dragging || !dirty} onClick={() => void save()} data-testid="save-button"
           aria-keyshortcuts="Control+S" title="Save to the library (Ctrl+S)">
           {busy ? 'Saving…' : 'Save'}
         </button>
