@@ -38,8 +38,9 @@ export function makeQuantizer(encoding: Encoding, min: number, max: number): Qua
     const offset = Math.fround(min);
     let scale = Math.fround(max - offset);
     if (!(scale > 0)) scale = 0;
-    // make sure offset + scale reaches max despite the f32 rounding of scale
-    while (scale > 0 && offset + scale < max) scale = Math.fround(scale * (1 + 2 ** -23));
+    // make sure offset + scale reaches max despite the f32 rounding of scale; step to the next float32
+    // (a relative step would stall on subnormal scales and loop for ever)
+    while (scale > 0 && offset + scale < max) scale = nextUpF32(scale);
     return { encoding, offset, scale };
   }
   return { encoding, offset: 0, scale: 1 };
