@@ -82,6 +82,7 @@ test('a viewer reads the library without editing controls', async ({ page }) => 
 });
 
 test('an animator proposes a version and sees its bake per target and its downloads with SHA-256', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 1500 }); // the whole grid and the pack strip on screen
   await signIn(page, 'animator@corvid-lantern.test', 'Animator');
   await page.goto('/packs/menu-transitions');
   await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(4);
@@ -165,4 +166,32 @@ test('a lead compares v2 with v1 (a changed curve with its max deviation), reque
   await expect(page.getByRole('list', { name: 'Releases of shipping' }).getByRole('listitem')).toHaveCount(2);
   await expect(page.getByRole('list', { name: 'Releases of shipping' }).getByRole('listitem').first()).toContainText('v2 → v1 by Tamsin Okafor');
   await page.screenshot({ path: `${SHOTS}/library-channels.png`, fullPage: true });
+});
+
+test('drag with the pointer: a card dropped on another takes its place; dropped on a pack it moves there', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 1500 }); // the whole grid and the pack strip on screen
+  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await page.goto('/packs/menu-transitions');
+  await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(4);
+  const before = await cardNames(page);
+  const last = before[before.length - 1]!;
+  const drag = async (from: string, to: import('@playwright/test').Locator) => {
+    const grip = page.getByRole('button', { name: `Drag to reorder or move: ${from}` });
+    const a = (await grip.boundingBox())!;
+    const b = (await to.boundingBox())!;
+    await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(a.x + a.width / 2 + 10, a.y + a.height / 2 + 10, { steps: 3 });
+    await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 12 });
+    await page.mouse.up();
+  };
+  await drag(last, page.getByRole('list', { name: 'Curves' }).getByRole('article').first());
+  await expect.poll(() => cardNames(page)).toEqual([last, ...before.slice(0, -1)]);
+  await page.reload();
+  await expect.poll(() => cardNames(page)).toEqual([last, ...before.slice(0, -1)]);
+
+  await drag(last, page.locator('[data-pack-drop="audio-fades"]'));
+  await expect.poll(() => cardNames(page)).toEqual(before.slice(0, -1));
+  await page.goto('/packs/audio-fades');
+  await expect.poll(() => cardNames(page)).toContain(last);
 });

@@ -11,7 +11,8 @@ import { useSavePack } from '../features/packs/api/save-pack';
 import { useReorderCurves, useTransferCurve } from '../features/packs/api/arrange-curves';
 import { CurveCard } from '../features/packs/components/curve-card';
 import { PackForm } from '../features/packs/components/pack-form';
-import { NO_FILTER, matchesFilter, moved, tagsOf, type CurveFilter } from '../features/packs/components/curve-filter';
+import { NO_FILTER, matchesFilter, moved, placed, tagsOf, type CurveFilter } from '../features/packs/components/curve-filter';
+import { CurveDnd, DraggableSlot, PackDropStrip, type DropResult } from '../features/packs/components/curve-drag';
 import { useVersions } from '../features/packs/api/versions';
 import { ProposeVersionForm } from '../features/packs/components/propose-version-form';
 import { VersionsList } from '../features/packs/components/versions-list';
@@ -97,20 +98,27 @@ function PackOfTeam({ teamId, role, slug }: { teamId: string; role: Role; slug: 
         </form>
       <p className="mt-2 text-sm" role="status">{filtered ? `${shown.length} of ${curves.length} curves match.` : `${curves.length} curves.`}{filtered && canEdit ? ' Clear the filter to reorder.' : ''}</p>
 
-      <ul aria-label="Curves" className="mt-3 grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        {shown.map((c) => {
-          const index = curves.indexOf(c);
-          return (
-            <li key={c.id} className="grid">
-              <CurveCard
-                curve={c} index={index} count={curves.length} canEdit={canEdit && !filtered} otherPacks={others} busy={busy}
-                onShift={(by) => reorder.mutate(moved(curves.map((x) => x.id), index, by))}
-                onTransfer={(mode, toPack) => transfer.mutate({ curveId: c.id, toPack, mode })}
-              />
-            </li>
-          );
-        })}
-      </ul>
+      <CurveDnd onDrop={(r: DropResult) => {
+        const ids = curves.map((x) => x.id);
+        if (r.kind === 'pack') transfer.mutate({ curveId: r.curveId, toPack: r.toPack, mode: 'move' });
+        else reorder.mutate(placed(ids, ids.indexOf(r.curveId), ids.indexOf(r.onCurveId)));
+      }}>
+        {canEdit && !filtered ? <PackDropStrip packs={others} /> : null}
+        <ul aria-label="Curves" className="mt-3 grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+          {shown.map((c) => {
+            const index = curves.indexOf(c);
+            return (
+              <DraggableSlot key={c.id} curveId={c.id} name={c.document.name} enabled={canEdit && !filtered && !busy}>
+                <CurveCard
+                  curve={c} index={index} count={curves.length} canEdit={canEdit && !filtered} otherPacks={others} busy={busy}
+                  onShift={(by) => reorder.mutate(moved(curves.map((x) => x.id), index, by))}
+                  onTransfer={(mode, toPack) => transfer.mutate({ curveId: c.id, toPack, mode })}
+                />
+              </DraggableSlot>
+            );
+          })}
+        </ul>
+      </CurveDnd>
 
       <Card className="mt-8 p-5">
         <h2 className="text-lg font-semibold">Versions</h2>

@@ -53,3 +53,21 @@ describe('curve filter', () => {
     expect(moved(['a', 'b', 'c'], 2, 1)).toEqual(['a', 'b', 'c']);
   });
 });
+
+describe('drag and drop', () => {
+  it('a drop puts the dragged item in the target’s place', async () => {
+    const { placed } = await import('../../../src/features/packs/components/curve-filter');
+    expect(placed(['a', 'b', 'c', 'd'], 3, 0)).toEqual(['d', 'a', 'b', 'c']);
+    expect(placed(['a', 'b', 'c', 'd'], 0, 2)).toEqual(['b', 'c', 'a', 'd']);
+    expect(placed(['a', 'b'], 1, 1)).toEqual(['a', 'b']);
+  });
+
+  it('reads a drop on a card as a placement and on a pack as a move; on itself or nowhere as nothing', async () => {
+    const { dropResult } = await import('../../../src/features/packs/components/curve-drag');
+    const drag = (active: string, over: string | null) => dropResult({ active: { id: active }, over: over ? { id: over } : null } as never);
+    expect(drag('curve:a', 'slot:b')).toEqual({ kind: 'place', curveId: 'a', onCurveId: 'b' });
+    expect(drag('curve:a', 'pack:jump-arcs')).toEqual({ kind: 'pack', curveId: 'a', toPack: 'jump-arcs' });
+    expect(drag('curve:a', 'slot:a')).toBeNull();
+    expect(drag('curve:a', null)).toBeNull();
+  });
+});

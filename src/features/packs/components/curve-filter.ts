@@ -32,3 +32,12 @@ export function moved<T>(items: readonly T[], index: number, by: -1 | 1): T[] {
   [out[index], out[j]] = [out[j]!, out[index]!];
   return out;
 }
+
+/** The order after taking the item at `from` out and putting it where the item at `to` was (a drop). */
+export function placed<T>(items: readonly T[], from: number, to: number): T[] {
+  if (from < 0 || from >= items.length || to < 0 || to >= items.length || from === to) return [...items];
+  const out = [...items];
+  const [item] = out.splice(from, 1);
+  out.splice(to, 0, item!);
+  return out;
+}
