@@ -50,6 +50,12 @@ export interface MeasureOptions {
   estimate?: boolean;
   /** Also compare the end value when the range reaches the domain's end (default true). */
   includeEnd?: boolean;
+  /**
+   * Stop as soon as `certified` exceeds this value (a search that only asks "within tolerance?" needs no
+   * more): the returned figures then cover the pieces measured so far, so `certified` is still above
+   * `stopAbove` and `maxError` is still an error that really occurs. Default: measure everything.
+   */
+  stopAbove?: number;
 }
 
 type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
@@ -181,7 +187,8 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   while (k + 1 < nk && K[k + 1] <= A) k++;
   const cuts = src.cuts;
   let c = 0;
-  for (let i = 0; i < ns; i++) {
+  const stopAbove = opts.stopAbove ?? Infinity;
+  pieces: for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
     if (!(b > a)) continue;
     const exact = src.poly(i) !== null;
@@ -200,6 +207,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
         tableCoeffs(tab, k, x0);
         if (exact) exactPiece(src, i, x0, x1);
         else sampledPiece(src, i, x0, x1, x0, estimate ? tolAbs : slackAbs, maxSamples, estimate, 0);
+        if (certified > stopAbove) break pieces;
       }
       if (x1 >= b) break;
       x0 = x1;
@@ -207,6 +215,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
     }
   }
   // the end point itself (a step into the last key shows only there)
+  if (certified > stopAbove) return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
     const e = Math.abs(src.endValue - evalTable(tab, B));
     record(e, B, e);

@@ -5,12 +5,14 @@
  *    so a jump with J/2 > tolerance makes every uniform table fail: reported with the curve and the time.
  * 2. Start size from the a-priori bound: h = √(8·tol/2/M2) (linear) or (384·tol/2/M4)^¼ (hermite),
  *    half the budget kept for round-off; N0 = ⌈D/h⌉ + 1 (mapped to the sample-count rule).
- * 3. Gallop/bisect on the candidate index for the smallest N whose measured error meets the tolerance,
- *    using the estimate measure (exact pieces exact; sampled pieces sampled without slack, a lower bound of
- *    the true error, so a count it rejects surely fails); then check the next 8 smaller candidates and
- *    step down while any passes (the error is not always monotone in N), so N − 1 … N − 8 all fail.
- * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, try larger counts
- *    (steps 1, 2, 4, …; at most 6 tries).
+ * 3. Search the candidate index with the estimate measure (exact pieces exact; sampled pieces sampled
+ *    without slack, a lower bound of the true error, so a count it rejects surely fails). The error is not
+ *    always monotone in N (a kink's place against the grid), so the search gallops and bisects on "some
+ *    count among j − 8 … j passes", which ends at an N that passes while N − 1 … N − 9 all fail.
+ *    The estimate stops at the first piece above tol, and a count is first tried on a few entries around
+ *    the place where the last rejected count failed (the non-monotone walk spends most counts there).
+ * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed
+ *    and the search runs again upward from N + 1 (at most 32 rounds).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break).
  */
@@ -26,6 +28,8 @@ import { candidates } from './candidates';
 
 export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
+/** Search-and-certify rounds before giving up (each round fails one more count). */
+const MAX_ROUNDS = 32;
 
 export interface UniformResult { table: Table; measure: ErrorMeasure; tried: Map<number, number> }
 
@@ -76,7 +80,10 @@ export function bakeUniform(
   const tried = new Map<number, number>();
   const estimates = new Map<number, number>();
   const tables = new Map<number, { table: Table; measure: ErrorMeasure }>();
-  const estOpts = { tolerance: tol, estimate: true };
+  const estOpts = { tolerance: tol, estimate: true, stopAbove: tol };
+  const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
+  // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
+  let failAt = Number.NaN;
   const opts = { tolerance: tol };
   const build = (n: number): Table | null => {
     try { return uniformTable(src, profile, n, breaks); } catch { return null; }
@@ -87,7 +94,21 @@ export function bakeUniform(
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
     const table = build(n);
-    const e = table ? measureError(src, table, estOpts).certified : Infinity;
+    let e = Infinity;
+    if (table) {
+      // look first around the last failure: a window of a few entries there rejects most counts at once
+      // (every sample is a true error, so a window above tol is a proof that the whole table fails)
+      if (!Number.isNaN(failAt)) {
+        const w = (4 * (B - A)) / Math.max(1, n - 1);
+        const win = measureError(src, table, winOpts, Math.max(A, failAt - w), Math.min(B, failAt + w));
+        if (win.certified > tol) e = win.certified;
+      }
+      if (e === Infinity) {
+        const m = measureError(src, table, estOpts);
+        e = m.certified;
+        if (e > tol) failAt = m.at;
+      }
+    }
     estimates.set(n, e);
     if (e > tol) tried.set(n, Infinity);
     return e <= tol;
@@ -107,49 +128,53 @@ export function bakeUniform(
   const n0 = Number.isFinite(h) && h > 0 ? Math.ceil((B - A) / h) + 1 : 2;
   let i0 = 0;
   while (i0 + 1 < cand.size && cand.at(i0) < n0) i0++;
-  let lo = -1, hi = -1;
-  if (ok(i0)) {
-    hi = i0;
-    let d = 1;
-    for (;;) {
-      let j = hi - d;
-      if (j < 0) {
-        j = 0;
-        if (hi > 0) { if (ok(0)) hi = 0; else lo = 0; }
-        break;
-      }
-      if (ok(j)) { hi = j; d *= 2; } else { lo = j; break; }
-    }
-  } else {
-    lo = i0;
-    let d = 1;
-    while (hi < 0) {
-      const j = Math.min(lo + d, cand.size - 1);
-      if (ok(j)) hi = j;
-      else {
-        if (j === cand.size - 1) {
-          return `curve "${src.name}": no uniform table of at most ${cand.at(j)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
+  // rounds: search with the estimate, certify; a count whose proof misses fails from then on
+  let start = i0, hi = -1;
+  for (let round = 0; ; round++) {
+    // a count that passes the estimate: i0, or the first found galloping upward from it
+    hi = -1;
+    if (ok(start)) hi = start;
+    else {
+      let lo = start, d = 1;
+      while (hi < 0) {
+        const j = Math.min(lo + d, cand.size - 1);
+        if (ok(j)) hi = j;
+        else {
+          if (j === cand.size - 1) {
+            return `curve "${src.name}": no uniform table of at most ${cand.at(j)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
+          }
+          lo = j; d *= 2;
         }
-        lo = j; d *= 2;
       }
     }
-  }
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (ok(mid)) hi = mid; else lo = mid;
-  }
-  // non-monotone guard: step down while one of the next smaller counts also passes the estimate
-  for (let j = hi - 1; j >= 0 && j >= hi - SCAN_BELOW; j--) {
-    if (ok(j)) hi = j;
-  }
-  // certify; where the estimate passed but the proof does not, move to the next count
-  let step = 1, attempts = 0;
-  while (!certify(hi)) {
-    if (++attempts >= 6 || hi + 1 >= cand.size) {
-      return `curve "${src.name}": no uniform table up to ${cand.at(hi)} entries is provably within ${tol.toPrecision(3)} (certified ${tried.get(cand.at(hi))!.toPrecision(3)})`;
+    // The error is not monotone in N, so search on the window predicate P(j): "some count in
+    // j − SCAN_BELOW … j passes" (P(j) = false for j < 0). Invariant: P(lo) is false and hi passes.
+    // Gallop down from hi, then bisect; at hi = lo + 1, hi passes and hi − 1 … hi − 1 − SCAN_BELOW fail.
+    const passIn = (j: number): number => {
+      for (let m = j; m >= 0 && m >= j - SCAN_BELOW; m--) if (ok(m)) return m;
+      return -1;
+    };
+    let lo = -1;
+    for (let d = 1; ; d *= 2) {
+      const j = hi - d;
+      if (j < 0) break;
+      const p = passIn(j);
+      if (p < 0) { lo = j; break; }
+      hi = p;
     }
-    hi = Math.min(hi + step, cand.size - 1);
-    step *= 2;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      const p = passIn(mid);
+      if (p < 0) lo = mid; else hi = p;
+    }
+    if (certify(hi)) break;
+    const n = cand.at(hi);
+    estimates.set(n, tried.get(n)!);
+    failAt = tables.get(n)!.measure.at;
+    if (round + 1 >= MAX_ROUNDS || hi + 1 >= cand.size) {
+      return `curve "${src.name}": no uniform table up to ${n} entries is provably within ${tol.toPrecision(3)} (certified ${tried.get(n)!.toPrecision(3)})`;
+    }
+    start = hi + 1;
   }
   const best = tables.get(cand.at(hi))!;
   return { table: best.table, measure: best.measure, tried };
