@@ -157,6 +157,9 @@ test('a lead compares v2 with v1 (a changed curve with its max deviation), reque
   await release.getByRole('button', { name: 'Release' }).click();
   await expect(page.getByRole('list', { name: 'Channels' })).toContainText('shipping → v2');
   await page.goto('/packs/audio-fades/versions/1');
+  // any two versions: v1 against the later v2
+  await page.getByLabel('Compare with').selectOption('2');
+  await expect(page.getByText('Compared with v2: 0 added, 0 removed, 1 changed, 2 unchanged.')).toBeVisible();
   await page.getByRole('button', { name: 'Send review' }).click();
   await expect(page.getByText('State: approved')).toBeVisible();
   await page.getByRole('link', { name: 'audio-fades', exact: true }).click();

@@ -1,7 +1,8 @@
+import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { Card } from '../components/card';
 import { roleCan, type Role } from '../../shared/schemas/roles';
-import { useComparison, useVersion, artifactUrl } from '../features/packs/api/versions';
+import { useComparison, useVersion, useVersions, artifactUrl } from '../features/packs/api/versions';
 import { ComparisonView } from '../features/packs/components/comparison-view';
 import { ReviewForm } from '../features/packs/components/review-form';
 import { ArtifactsTable } from '../features/packs/components/artifacts-table';
@@ -16,7 +17,12 @@ export function VersionPage() {
 
 function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: Role; slug: string; number: number }) {
   const q = useVersion(teamId, slug, number);
-  const cmp = useComparison(teamId, slug, number, number > 1);
+  const all = useVersions(teamId, slug);
+  const [chosen, setChosen] = useState<number | null>(null);
+  // compare with the version before by default, or any other one the reader picks
+  const against = chosen ?? (number > 1 ? number - 1 : null);
+  const cmp = useComparison(teamId, slug, number, against);
+  const others = (all.data ?? []).filter((x) => x.number !== number);
   if (q.isPending) return <p>Loading v{number}…</p>;
   if (q.isError) return <p role="alert">Could not load v{number} of “{slug}”: {q.error.message}</p>;
   const v = q.data;
@@ -39,9 +45,18 @@ function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: R
             ))}
           </ol>
         ) : <p className="mt-1 text-sm">No reviews yet.</p>}
+        {others.length ? (
+          <label className="mt-4 flex items-center gap-2 text-sm">
+            Compare with
+            <select value={against ?? ''} onChange={(e) => setChosen(e.target.value ? Number(e.target.value) : null)} className="rounded border border-grid-major bg-paper px-2 py-1 font-mono dark:bg-night">
+              {against === null ? <option value="">choose a version</option> : null}
+              {others.map((o) => <option key={o.id} value={o.number}>v{o.number}</option>)}
+            </select>
+          </label>
+        ) : null}
         <div className="mt-4">
-          {number === 1 ? <p className="text-sm">v1 is the first version: every curve is new.</p>
-            : cmp.isPending ? <p className="text-sm">Comparing with v{number - 1}…</p>
+          {against === null ? <p className="text-sm">v1 is the first version: every curve is new.</p>
+            : cmp.isPending ? <p className="text-sm">Comparing with v{against}…</p>
             : cmp.isError ? <p role="alert">Could not compare: {cmp.error.message}</p>
             : <ComparisonView c={cmp.data} />}
         </div>

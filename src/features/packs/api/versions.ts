@@ -39,11 +39,11 @@ export function useProposeVersion(teamId: string, slug: string) {
 export const artifactUrl = (teamId: string, slug: string, number: number, artifactId: string) => `${base(teamId, slug)}/${number}/artifacts/${artifactId}`;
 
 /** `GET …/versions/:number/compare[?against=n]` → what changed since the version before (or `against`). */
-export function useComparison(teamId: string | undefined, slug: string, number: number, enabled: boolean) {
+export function useComparison(teamId: string | undefined, slug: string, number: number, against: number | null) {
   return useQuery({
-    queryKey: [...versionsQueryKey(teamId ?? '', slug), number, 'compare'] as const,
-    queryFn: ({ signal }) => apiRequest<{ comparison: VersionComparison }>(`${base(teamId ?? '', slug)}/${number}/compare`, { signal }).then((r) => r.comparison),
-    enabled: Boolean(teamId) && enabled,
+    queryKey: [...versionsQueryKey(teamId ?? '', slug), number, 'compare', against] as const,
+    queryFn: ({ signal }) => apiRequest<{ comparison: VersionComparison }>(`${base(teamId ?? '', slug)}/${number}/compare?against=${against}`, { signal }).then((r) => r.comparison),
+    enabled: Boolean(teamId) && against !== null,
   });
 }
 
