@@ -7,12 +7,12 @@
  *    half the budget kept for round-off; N0 = ⌈D/h⌉ + 1 (mapped to the sample-count rule).
  * 3. Search the candidate index with the estimate measure (exact pieces exact; sampled pieces sampled
  *    without slack, a lower bound of the true error, so a count it rejects surely fails). The error is not
- *    always monotone in N (a kink's place against the grid), so the search gallops and bisects on "some
- *    count among j − 8 … j passes", which ends at an N that passes while N − 1 … N − 9 all fail.
+ *    always monotone in N (a kink's place against the grid), so the search bisects on "some count among
+ *    j − 8 … j passes", which ends at an N that passes while N − 1 … N − 9 all fail.
  *    The estimate stops at the first piece above tol, and a count is first tried on a few entries around
- *    the place where the last rejected count failed (the non-monotone walk spends most counts there).
- * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed
- *    and the search runs again upward from N + 1 (at most 32 rounds).
+ *    the place where the last rejected count failed (the search spends most counts there).
+ * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed,
+ *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break).
  */
@@ -128,40 +128,29 @@ export function bakeUniform(
   const n0 = Number.isFinite(h) && h > 0 ? Math.ceil((B - A) / h) + 1 : 2;
   let i0 = 0;
   while (i0 + 1 < cand.size && cand.at(i0) < n0) i0++;
-  // rounds: search with the estimate, certify; a count whose proof misses fails from then on
-  let start = i0, hi = -1;
+  // The error is not monotone in N, so search on the window predicate P(j): "some count in
+  // j − SCAN_BELOW … j passes" (P(j) = false for j < 0). Invariant: P(lo) is false and hi passes.
+  // At hi = lo + 1, hi passes and hi − 1 … hi − 1 − SCAN_BELOW fail.
+  const passIn = (j: number): number => {
+    for (let m = j; m >= 0 && m >= j - SCAN_BELOW; m--) if (ok(m)) return m;
+    return -1;
+  };
+  const none = () => `curve "${src.name}": no uniform table of at most ${cand.at(cand.size - 1)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
+  let lo = -1, hi = -1;
+  // a count that passes the estimate: i0, or the first found galloping upward from it; then bisect on P
+  // from lo = −1 (fewer steps than galloping down when the bound's start is far above the answer)
+  if (ok(i0)) hi = i0;
+  else {
+    let f = i0;
+    for (let d = 1; hi < 0; d *= 2) {
+      const j = Math.min(f + d, cand.size - 1);
+      if (ok(j)) hi = j;
+      else if (j === cand.size - 1) return none();
+      else f = j;
+    }
+  }
+  // rounds: bisect, certify; a count whose proof misses fails from then on, and P(that count) is false
   for (let round = 0; ; round++) {
-    // a count that passes the estimate: i0, or the first found galloping upward from it
-    hi = -1;
-    if (ok(start)) hi = start;
-    else {
-      let lo = start, d = 1;
-      while (hi < 0) {
-        const j = Math.min(lo + d, cand.size - 1);
-        if (ok(j)) hi = j;
-        else {
-          if (j === cand.size - 1) {
-            return `curve "${src.name}": no uniform table of at most ${cand.at(j)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
-          }
-          lo = j; d *= 2;
-        }
-      }
-    }
-    // The error is not monotone in N, so search on the window predicate P(j): "some count in
-    // j − SCAN_BELOW … j passes" (P(j) = false for j < 0). Invariant: P(lo) is false and hi passes.
-    // Gallop down from hi, then bisect; at hi = lo + 1, hi passes and hi − 1 … hi − 1 − SCAN_BELOW fail.
-    const passIn = (j: number): number => {
-      for (let m = j; m >= 0 && m >= j - SCAN_BELOW; m--) if (ok(m)) return m;
-      return -1;
-    };
-    let lo = -1;
-    for (let d = 1; ; d *= 2) {
-      const j = hi - d;
-      if (j < 0) break;
-      const p = passIn(j);
-      if (p < 0) { lo = j; break; }
-      hi = p;
-    }
     while (hi - lo > 1) {
       const mid = (lo + hi) >> 1;
       const p = passIn(mid);
@@ -174,7 +163,15 @@ export function bakeUniform(
     if (round + 1 >= MAX_ROUNDS || hi + 1 >= cand.size) {
       return `curve "${src.name}": no uniform table up to ${n} entries is provably within ${tol.toPrecision(3)} (certified ${tried.get(n)!.toPrecision(3)})`;
     }
-    start = hi + 1;
+    // gallop up on P from lo = hi to the next window holding a passing count
+    lo = hi; hi = -1;
+    for (let d = 1; hi < 0; d *= 2) {
+      const j = Math.min(lo + d, cand.size - 1);
+      const p = passIn(j);
+      if (p >= 0) hi = p;
+      else if (j === cand.size - 1) return none();
+      else lo = j;
+    }
   }
   const best = tables.get(cand.at(hi))!;
   return { table: best.table, measure: best.measure, tried };
