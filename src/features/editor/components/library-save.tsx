@@ -69,8 +69,7 @@ export function LibrarySavePanel({ api, source, drafts, initialRevision, baselin
     } catch (e) {
       setStatus({ kind: 'error', message: (e as Error).message });
     }
-    // settle reads refs and setters only
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // `settle` is left out of the dependencies on purpose: it reads refs and state setters only
   }, [api, source, busy]);
 
   const overwrite = async () => {
