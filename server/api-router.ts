@@ -14,6 +14,7 @@ import { profileRoutes } from './profiles/profiles.routes';
 import { packRoutes } from './packs/packs.routes';
 import { versionRoutes } from './versions/versions.routes';
 import { channelRoutes } from './channels/channels.routes';
+import { inboxRoutes } from './inbox/inbox.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -36,6 +37,7 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(packRoutes(ctx));
   api.use(versionRoutes(ctx));
   api.use(channelRoutes(ctx));
+  api.use(inboxRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

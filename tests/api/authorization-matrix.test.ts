@@ -101,6 +101,8 @@ const MATRIX: Entry[] = [
   { route: 'GET /api/invitations/:token', build: () => ({ url: '/api/invitations/inv_not_a_real_token' }), expect: everyone(404) },
   { route: 'POST /api/invitations/accept', build: () => ({ url: '/api/invitations/accept', body: { token: 'inv_not_a_real_token', name: 'X', password: 'a long new password' } }), expect: everyone(404) },
   { route: 'GET /api/teams', build: () => ({ url: '/api/teams' }), expect: person(200) },
+  // the home page's inbox (issue 7): any signed-in person sees only what is in their own teams
+  { route: 'GET /api/me/inbox', build: () => ({ url: '/api/me/inbox' }), expect: person(200) },
   { route: 'GET /api/teams/:teamId', build: (e) => ({ url: `/api/teams/${e.team}` }), expect: forRoles(200, ROLES, { token: 200 }) },
   { route: 'GET /api/teams/:teamId/members', build: (e) => ({ url: `/api/teams/${e.team}/members` }), expect: forRoles(200, ROLES) },
   {
