@@ -1,7 +1,21 @@
 import { DraftingSketch } from '../components/drafting-sketch';
 import { ServiceStatusCard } from '../features/health/components/service-status-card';
+import { Inbox } from '../features/inbox/components/inbox';
+import { roleCan } from '../../shared/schemas/roles';
+import { useCurrentTeam } from '../app/use-current-team';
 
+/** Signed in: what waits for the person (their inbox). Signed out: the product and the service status. */
 export function HomePage() {
+  const { me, teams, setTeamId } = useCurrentTeam();
+  if (me.data) {
+    return (
+      <div className="grid max-w-3xl gap-6">
+        <title>Tangentry — what waits for you</title>
+        <h1 className="text-3xl font-semibold tracking-tight">What waits for you, {me.data.user.name}</h1>
+        <Inbox canReview={teams.some((t) => roleCan(t.role, 'versions.review'))} onOpenTeam={setTeamId} />
+      </div>
+    );
+  }
   return (
     <div className="grid gap-10 lg:grid-cols-[minmax(0,1fr)_minmax(0,36rem)] lg:items-start">
       <title>Tangentry</title>
