@@ -77,6 +77,9 @@ async function main(): Promise<void> {
 }
 
 for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(sig, () => void stopAll(0));
+// Whatever ends the process (Vite's own SIGTERM handler in dev calls process.exit), PostgreSQL is stopped:
+// stop() is synchronous, so it runs inside the exit hook.
+process.on('exit', () => started.pg?.stop());
 
 main().catch(async (err) => {
   if (err instanceof ConfigError) console.error(err.message);

@@ -81,6 +81,14 @@ async function main(): Promise<number> {
   const work = mkdtempSync(join(tmpdir(), 'tangentry-test-'));
   chmodSync(work, 0o755); // the postgres user must reach its data folder
   const pgServer = await startEmbeddedPostgres({ dataDir: join(work, 'pg'), database: TEMPLATE_DB, throwaway: true });
+  // Ctrl-C or SIGTERM mid-run: stop the throwaway cluster and remove its folder before leaving
+  for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
+    process.once(sig, () => {
+      pgServer.stop();
+      rmSync(work, { recursive: true, force: true });
+      process.exit(130);
+    });
+  }
   const s3 = await startS3Fake({ directory: join(work, 's3'), bucket: 'tangentry-test' });
   const mail = await startMailCatcher({ directory: join(work, 'mail') });
   try {

@@ -42,8 +42,11 @@ export async function startServer(
     server,
     url: `http://${config.host}:${port}`,
     async close() {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-      server.closeAllConnections();
+      // stop accepting, drop idle keep-alive sockets now and busy ones after a grace period
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      setTimeout(() => server.closeAllConnections(), 2_000).unref();
+      await closed;
       await closeContext(ctx);
     },
   };
