@@ -30,7 +30,7 @@ export interface GltfExportOptions extends GltfWriteOptions {
   tolerance?: number;
 }
 
-export interface GltfCurveReport {
+export interface GltfTrackReport {
   curve: string;
   node: string;
   interpolation: GltfInterpolation;
@@ -43,7 +43,7 @@ export interface GltfCurveReport {
 }
 
 export interface GltfExport extends GltfWritten {
-  report: GltfCurveReport[];
+  report: GltfTrackReport[];
   /** Seconds added to every time (0 unless a curve started before 0). */
   timeOffset: number;
 }
@@ -206,7 +206,7 @@ export function exportGltf(docs: readonly CurveDocument[], opts: GltfExportOptio
   const minStart = Math.min(...prepared.map((c) => c.start));
   const offset = minStart < 0 ? -minStart : 0;
   const tracks: GltfTrack[] = [];
-  const report: GltfCurveReport[] = [];
+  const report: GltfTrackReport[] = [];
   const nodeNames = new Set<string>();
   prepared.forEach((src, idx) => {
     const name = docs[idx].name;

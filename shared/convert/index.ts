@@ -1,7 +1,7 @@
 /** Conversions: glTF 2.0 animation import/export, CSS easing functions, key reduction, motion samples. */
 export { writeGltf, writeGlb, type GltfTrack, type GltfInterpolation, type GltfWriteOptions, type GltfWritten, type GltfJson } from './gltf-write';
 export { readGltf, parseGlb, isGlb, GltfReadError, type GltfImport, type GltfResolver } from './gltf-read';
-export { exportGltf, evaluateGltfTrack, gltfNodeName, type GltfExport, type GltfExportOptions, type GltfCurveReport } from './gltf-export';
+export { exportGltf, evaluateGltfTrack, gltfNodeName, type GltfExport, type GltfExportOptions, type GltfTrackReport } from './gltf-export';
 export {
   parseCssEasing, evaluateCssEasing, formatCssEasing, canonicalizeLinear, cubicBezierEasing, stepsEasing, linearEasing,
   CSS_BEZIER_KEYWORDS, type CssEasing, type CssParseResult, type LinearPoint, type StepPosition,
