@@ -1,15 +1,9 @@
 import { test, expect, type Page } from '@playwright/test';
+import { submitSignIn } from './support';
 
 // Demo accounts of the embedded default (server/seed/demo-accounts.ts); the e2e app runs with TANGENTRY_EMBEDDED=true.
-const PASSWORD = 'tidewright-demo';
 const SHOTS = process.env.E2E_SCREENSHOT_DIR ?? '.tmp';
 
-async function signIn(page: Page, email: string, password = PASSWORD) {
-  await page.goto('/sign-in');
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-}
 
 // The demo roles and what each should see in its first team ("Gameplay Feel" sorts first) and in UI Motion.
 const ROLES = [
@@ -31,7 +25,7 @@ test('the sign-in page lists the demo accounts of the embedded default', async (
 
 for (const r of ROLES) {
   test(`${r.role} signs in and sees the ${r.role} view`, async ({ page }) => {
-    await signIn(page, `${r.role}@corvid-lantern.test`);
+    await submitSignIn(page, `${r.role}@corvid-lantern.test`);
     await expect(page).toHaveURL(/\/team$/);
     const myRole = page.getByTestId('my-role');
     if (r.gameplay) await expect(myRole).toContainText(`You are ${r.gameplay} in Gameplay Feel`);
@@ -47,7 +41,7 @@ for (const r of ROLES) {
 }
 
 test('a wrong password shows a clear message and signs nobody in', async ({ page }) => {
-  await signIn(page, 'lead@corvid-lantern.test', 'not-the-password');
+  await submitSignIn(page, 'lead@corvid-lantern.test', 'not-the-password');
   await expect(page.getByRole('alert')).toHaveText('That e-mail and password do not match an account.');
   await expect(page).toHaveURL(/\/sign-in$/);
   await expect(page.getByRole('banner').getByRole('link', { name: 'Sign in' })).toBeVisible();
@@ -55,7 +49,7 @@ test('a wrong password shows a clear message and signs nobody in', async ({ page
 });
 
 test('sign out ends the session', async ({ page }) => {
-  await signIn(page, 'engineer@corvid-lantern.test');
+  await submitSignIn(page, 'engineer@corvid-lantern.test');
   await expect(page.getByTestId('my-role')).toBeVisible();
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page).toHaveURL(/\/sign-in$/);
@@ -65,7 +59,7 @@ test('sign out ends the session', async ({ page }) => {
 });
 
 test('admin creates a service token (shown once) and invites someone, whose mail appears in the outbox', async ({ page }) => {
-  await signIn(page, 'admin@corvid-lantern.test');
+  await submitSignIn(page, 'admin@corvid-lantern.test');
   await page.getByLabel('Current team').selectOption({ label: 'UI Motion · Admin' });
   await page.getByLabel('E-mail').fill('new-animator@corvid-lantern.test');
   await page.getByRole('button', { name: 'Send invitation' }).click();

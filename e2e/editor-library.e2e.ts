@@ -1,4 +1,5 @@
 import { test, expect, type Browser, type Page } from '@playwright/test';
+import { centre, drag, signInToUiMotion } from './support';
 
 // The editor on a library curve (/packs/:pack/curves/:curve, issue 6 item 8): opened from a curve card,
 // a dragged key saved with the Save button and found as drawn after a reload, unsaved edits kept as a
@@ -6,7 +7,6 @@ import { test, expect, type Browser, type Page } from '@playwright/test';
 // conflict message (Reload / Overwrite), and a viewer's read-only editor without Save.
 // Demo accounts of the embedded default (server/seed/demo-accounts.ts); packs from server/seed/demo-packs.ts.
 
-const PASSWORD = 'tidewright-demo';
 const SHOTS = `${import.meta.dirname}/../.tmp`;
 
 function watch(page: Page) {
@@ -19,12 +19,7 @@ function watch(page: Page) {
 /** Signs in and picks "UI Motion" in the top bar's team switcher. */
 async function signIn(page: Page, email: string, uiMotionRole: string) {
   watch(page);
-  await page.goto('/sign-in');
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/team$/);
-  await page.getByLabel('Current team').selectOption({ label: `UI Motion · ${uiMotionRole}` });
+  await signInToUiMotion(page, email, uiMotionRole);
 }
 
 /** From the pack page, through the curve card's link. */
@@ -36,18 +31,7 @@ async function openCurve(page: Page, pack: string, curve: string, verb = 'Edit')
   await expect(page.getByRole('heading', { level: 1 })).toContainText(curve);
 }
 
-async function centre(page: Page, testId: string) {
-  const box = await page.getByTestId(testId).locator('circle.dot').boundingBox();
-  if (!box) throw new Error(`${testId} has no box`);
-  return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
-}
 
-async function drag(page: Page, from: { x: number; y: number }, to: { x: number; y: number }) {
-  await page.mouse.move(from.x, from.y);
-  await page.mouse.down();
-  for (let i = 1; i <= 8; i++) await page.mouse.move(from.x + ((to.x - from.x) * i) / 8, from.y + ((to.y - from.y) * i) / 8);
-  await page.mouse.up();
-}
 
 const nameOf = async (page: Page, testId: string) => (await page.getByTestId(testId).getAttribute('aria-label')) ?? '';
 

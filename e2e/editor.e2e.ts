@@ -1,4 +1,5 @@
 import { test, expect, type Page } from '@playwright/test';
+import { centre, drag } from './support';
 
 // The scratch curve editor at /editor (issue 6): direct manipulation with the mouse, the key card,
 // the target strip, keyboard nudging, undo, the browser-local document surviving a reload, and
@@ -21,18 +22,7 @@ async function openFresh(page: Page) {
   }
 }
 
-async function centre(page: Page, testId: string) {
-  const box = await page.getByTestId(testId).locator('circle.dot').boundingBox();
-  if (!box) throw new Error(`${testId} has no box`);
-  return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
-}
 
-async function drag(page: Page, from: { x: number; y: number }, to: { x: number; y: number }) {
-  await page.mouse.move(from.x, from.y);
-  await page.mouse.down();
-  for (let i = 1; i <= 8; i++) await page.mouse.move(from.x + ((to.x - from.x) * i) / 8, from.y + ((to.y - from.y) * i) / 8);
-  await page.mouse.up();
-}
 
 test('drag a key: the key card and the target strip follow; undo returns; a reload keeps the edit', async ({ page }) => {
   await page.setViewportSize({ width: 1440, height: 1000 });

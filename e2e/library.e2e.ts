@@ -1,25 +1,17 @@
 import { test, expect, type Page } from '@playwright/test';
+import { signInToUiMotion } from './support';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 
 // Demo accounts of the embedded default (server/seed/demo-accounts.ts); packs seeded from the brief (server/seed/demo-packs.ts).
-const PASSWORD = 'tidewright-demo';
 const SHOTS = process.env.E2E_SCREENSHOT_DIR ?? '.tmp';
 
 /** Signs in and picks "UI Motion" in the top bar's team switcher (the animator is a viewer in Gameplay Feel). */
-async function signIn(page: Page, email: string, uiMotionRole: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/team$/);
-  await page.getByLabel('Current team').selectOption({ label: `UI Motion · ${uiMotionRole}` });
-}
 
 const cardNames = (page: Page) => page.getByRole('list', { name: 'Curves' }).getByRole('heading', { level: 3 }).allTextContents();
 
 test('an animator opens a pack, sees its curve cards, filters them and reorders with the keyboard', async ({ page }) => {
-  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await signInToUiMotion(page, 'animator@corvid-lantern.test', 'Animator');
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
   await expect(page).toHaveURL(/\/packs$/);
   const packs = page.getByRole('list', { name: 'Packs' });
@@ -55,7 +47,7 @@ test('an animator opens a pack, sees its curve cards, filters them and reorders 
 });
 
 test('an animator is told which pack field is wrong, then creates and archives a pack', async ({ page }) => {
-  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await signInToUiMotion(page, 'animator@corvid-lantern.test', 'Animator');
   await page.goto('/packs');
   await page.getByRole('button', { name: 'New pack' }).click();
   await page.getByLabel('Name').fill('Loading screens');
@@ -74,7 +66,7 @@ test('an animator is told which pack field is wrong, then creates and archives a
 });
 
 test('a viewer reads the library without editing controls', async ({ page }) => {
-  await signIn(page, 'viewer@corvid-lantern.test', 'Viewer');
+  await signInToUiMotion(page, 'viewer@corvid-lantern.test', 'Viewer');
   await page.goto('/packs/audio-fades');
   await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(3);
   await expect(page.getByRole('button', { name: /Move later/ })).toHaveCount(0);
@@ -83,7 +75,7 @@ test('a viewer reads the library without editing controls', async ({ page }) => 
 
 test('an animator proposes a version and sees its bake per target and its downloads with SHA-256', async ({ page }) => {
   await page.setViewportSize({ width: 1280, height: 1500 }); // the whole grid and the pack strip on screen
-  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await signInToUiMotion(page, 'animator@corvid-lantern.test', 'Animator');
   await page.goto('/packs/menu-transitions');
   await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(4);
   await page.getByRole('button', { name: 'Propose v1' }).click();
@@ -113,7 +105,7 @@ test('an animator proposes a version and sees its bake per target and its downlo
 });
 
 test('a lead compares v2 with v1 (a changed curve with its max deviation), requests changes, then approves', async ({ page, baseURL }) => {
-  await signIn(page, 'lead@corvid-lantern.test', 'Lead');
+  await signInToUiMotion(page, 'lead@corvid-lantern.test', 'Lead');
   await page.goto('/packs/audio-fades');
   await page.getByLabel('Changelog').fill('Audio fades as first mixed.');
   await page.getByRole('button', { name: 'Propose v1' }).click();
@@ -173,7 +165,7 @@ test('a lead compares v2 with v1 (a changed curve with its max deviation), reque
 
 test('drag with the pointer: a card dropped on another takes its place; dropped on a pack it moves there', async ({ page }) => {
   await page.setViewportSize({ width: 1280, height: 1500 }); // the whole grid and the pack strip on screen
-  await signIn(page, 'animator@corvid-lantern.test', 'Animator');
+  await signInToUiMotion(page, 'animator@corvid-lantern.test', 'Animator');
   await page.goto('/packs/menu-transitions');
   await expect(page.getByRole('list', { name: 'Curves' }).getByRole('article')).toHaveCount(4);
   const before = await cardNames(page);

@@ -1,19 +1,12 @@
 import { test, expect, type Page } from '@playwright/test';
+import { signInToTeam } from './support';
 
 // Demo accounts of the embedded default (server/seed/demo-accounts.ts); target profiles seeded from the brief.
-const PASSWORD = 'tidewright-demo';
 const SHOTS = process.env.E2E_SCREENSHOT_DIR ?? '.tmp';
 
-async function signIn(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/team$/);
-}
 
 test('an engineer sees the demo targets, is told which field is wrong, and adds a profile', async ({ page }) => {
-  await signIn(page, 'engineer@corvid-lantern.test');
+  await signInToTeam(page, 'engineer@corvid-lantern.test');
   await page.getByRole('navigation', { name: 'Team' }).getByRole('link', { name: 'Target profiles' }).click();
   await expect(page).toHaveURL(/\/team\/profiles$/);
   const table = page.getByRole('table', { name: 'Target profiles' });
@@ -35,7 +28,7 @@ test('an engineer sees the demo targets, is told which field is wrong, and adds 
 });
 
 test('a viewer reads the target profiles but gets no editing controls', async ({ page }) => {
-  await signIn(page, 'viewer@corvid-lantern.test');
+  await signInToTeam(page, 'viewer@corvid-lantern.test');
   await page.goto('/team/profiles');
   await expect(page.getByRole('rowheader', { name: 'Console' })).toBeVisible();
   await expect(page.getByRole('button', { name: 'New target profile' })).toHaveCount(0);

@@ -3,6 +3,7 @@
  * curve document, canonical JSON) and its artifacts (per target profile: JSON table, binary pack, CSS for
  * web targets) are stored objects named by their SHA-256.
  */
+import type { PackTotals } from '../bake/bake';
 import { z } from 'zod';
 import type { CurveDocument } from '../curve/types';
 
@@ -19,15 +20,7 @@ export const ARTIFACT_FORMATS = ['source', 'json', 'binary', 'css'] as const;
 export type ArtifactFormat = (typeof ARTIFACT_FORMATS)[number];
 
 /** Per target profile: how the bake of the pack went (BakeReport totals) and which curves failed and why. */
-export interface BakeSummary {
-  profile: string;
-  curves: number;
-  failed: number;
-  entries: number;
-  bytes: number;
-  overCap: number;
-  /** Largest certified error / tolerance over the pack's curves (≤ 1 when every curve is within budget). */
-  worstRatio: number;
+export interface BakeSummary extends Omit<PackTotals, 'methods'> {
   failures: { curve: string; error: string }[];
 }
 
