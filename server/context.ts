@@ -9,6 +9,8 @@ import { initModels } from './models';
 import { createS3Client } from './storage/s3-client';
 import { createMailTransport } from './mail/transport';
 import { createLogger } from './logger';
+import { TeamEvents } from './events/team-events';
+import { registerSubscribers } from './events/subscribers';
 
 /** What every route and service needs, made once per process and passed down (no globals to import). */
 export interface AppContext {
@@ -19,6 +21,8 @@ export interface AppContext {
   mail: Transporter | null;
   /** A small pg pool for lucia's session adapter (server/auth/lucia.ts). */
   pgPool: pg.Pool;
+  /** Team events (server/events/team-events.ts): routes publish, the activity log, notifications and webhooks listen. */
+  events: TeamEvents;
 }
 
 export function createContext(config: Config, logger: Logger = createLogger(config.logLevel)): AppContext {
@@ -26,7 +30,9 @@ export function createContext(config: Config, logger: Logger = createLogger(conf
   initModels(sequelize);
   const pgPool = new pg.Pool({ connectionString: config.databaseUrl, max: Math.max(2, Math.ceil(config.databasePoolMax / 2)), idleTimeoutMillis: 10_000 });
   pgPool.on('error', (err) => logger.warn({ err: err.message }, 'idle session-pool connection failed'));
-  return { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config), pgPool };
+  const ctx: AppContext = { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config), pgPool, events: new TeamEvents(logger) };
+  registerSubscribers(ctx);
+  return ctx;
 }
 
 export async function closeContext(ctx: AppContext): Promise<void> {

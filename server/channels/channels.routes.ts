@@ -6,9 +6,10 @@ import { validateBody } from '../http/validate';
 import { badRequest } from '../http/errors';
 import { channelNameSchema, releaseSchema } from '../../shared/schemas/channels';
 import * as channels from './channels.service';
+import { getPack } from '../packs/packs.service';
 
 /** Channels of a pack: every member and the team's tokens read; leads and admins (channels.release) move them. */
-export function channelRoutes(_ctx: AppContext): Router {
+export function channelRoutes(ctx: AppContext): Router {
   const router = Router();
   const base = '/teams/:teamId/packs/:pack/channels';
 
@@ -24,7 +25,17 @@ export function channelRoutes(_ctx: AppContext): Router {
     const parsed = channelNameSchema.safeParse(String(req.params.channel));
     if (!parsed.success) throw badRequest(parsed.error.issues[0]!.message, { channel: parsed.error.issues[0]!.message });
     const name = parsed.data;
-    res.json({ channel: await channels.release(p, teamAccessOf(res).teamId, String(req.params.pack), name, req.body.version, p.user.id) });
+    const teamId = teamAccessOf(res).teamId;
+    const before = (await channels.listChannels(p, teamId, String(req.params.pack))).find((c) => c.name === name)?.version ?? null;
+    const channel = await channels.release(p, teamId, String(req.params.pack), name, req.body.version, p.user.id);
+    if (before !== channel.version) {
+      const pack = await getPack(p, teamId, String(req.params.pack));
+      await ctx.events.publish({
+        type: 'channel.moved', teamId, actorId: p.user.id, pack: { id: pack.id, slug: pack.slug, name: pack.name },
+        subject: { kind: 'channel', label: name }, data: { channel: name, from: before, to: channel.version },
+      });
+    }
+    res.json({ channel });
   });
 
   return router;

@@ -8,6 +8,7 @@ import { validateBody, validateQuery } from '../http/validate';
 import { compareQuerySchema, proposeVersionSchema, reviewSchema } from '../../shared/schemas/versions';
 import * as versions from './versions.service';
 import { notifyProposer } from './review-mail';
+import { getPack } from '../packs/packs.service';
 
 /**
  * Pack versions: every member and the team's tokens (limited to their packs) read the manifests and
@@ -29,7 +30,13 @@ export function versionRoutes(ctx: AppContext): Router {
   router.post(base, requireUser(), requireTeam('versions.propose'), validateBody(proposeVersionSchema), async (req, res) => {
     const p = principalOf(res);
     if (p.kind !== 'user') throw new Error('unreachable: requireUser lets only people through');
-    res.status(201).json({ version: await versions.proposeVersion(storage, p, team(res), String(req.params.pack), req.body.changelog, p.user.id) });
+    const version = await versions.proposeVersion(storage, p, team(res), String(req.params.pack), req.body.changelog, p.user.id);
+    const pack = await getPack(p, team(res), String(req.params.pack));
+    await ctx.events.publish({
+      type: 'version.proposed', teamId: team(res), actorId: p.user.id, pack: { id: pack.id, slug: pack.slug, name: pack.name },
+      subject: { kind: 'version', id: version.id, label: `v${version.number}` }, data: { version: version.number, changelog: version.changelog },
+    });
+    res.status(201).json({ version });
   });
 
   // GET …/versions/:number → { version } with its artifacts (size, SHA-256)
@@ -71,6 +78,13 @@ export function versionRoutes(ctx: AppContext): Router {
     const slug = String(req.params.pack);
     const version = await versions.review(p, team(res), slug, Number(req.params.number), p.user.id, req.body);
     await notifyProposer(ctx, slug, version, p.user.id);
+    const pack = await getPack(p, team(res), slug);
+    const latest = version.reviews[version.reviews.length - 1];
+    await ctx.events.publish({
+      type: req.body.decision === 'approve' ? 'version.approved' : 'version.changes-requested', teamId: team(res), actorId: p.user.id,
+      pack: { id: pack.id, slug: pack.slug, name: pack.name }, subject: { kind: 'version', id: version.id, label: `v${version.number}` },
+      data: { version: version.number, reviewId: latest?.id ?? null, comment: req.body.comment, proposedBy: version.proposedBy?.id ?? null },
+    });
     res.status(201).json({ version });
   });
 
