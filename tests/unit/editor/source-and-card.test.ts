@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { DEMO_PROFILES } from '../../../shared/bake';
 import { localDocumentSource, type KeyValueStorage } from '../../../src/features/editor/store/document-source';
 import { EDITOR_EXAMPLES } from '../../../src/features/editor/store/examples';
-import { patchKey, patchSegment } from '../../../src/features/editor/store/edits';
+import { patchBezierHandle, patchKey, patchSegment, shapeEverySegment } from '../../../src/features/editor/store/edits';
+import { evaluate, prepareCurve, shapeValue } from '../../../shared/curve';
 import { checkEdit, fieldOf, parseNumberField } from '../../../src/features/editor/key-card/validate-edit';
 import { bakeForStrip } from '../../../src/features/editor/target-strip/bake-strip';
 import { poolSize } from '../../../src/features/editor/target-strip/bake-runner';
@@ -71,7 +72,36 @@ describe('key card validation (shared schema)', () => {
     // catmull-rom: (v₂ − v₀)/(t₂ − t₀) = (1 − 0)/(0.45 − 0) (Catmull & Rom 1974, REFERENCES.md)
     if (r.ok) expect(r.doc.keys[1].slopeOut).toBeCloseTo(1 / 0.45, 12);
   });
+  it('a Bézier handle typed outside its segment names that handle field', () => {
+    const a = panel.keys[0], b = panel.keys[1], h = b.time - a.time;
+    const bez = patchSegment(panel, 0, { kind: 'bezier', bezier: { h1: { time: a.time + h / 3, value: a.value }, h2: { time: a.time + (2 * h) / 3, value: b.value } } });
+    const r = checkEdit(patchBezierHandle(bez, 0, 'h2', 'time', b.time + 1), 0);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.errors['h2.time']).toMatch(/must lie inside its segment/);
+    const ok = checkEdit(patchBezierHandle(bez, 0, 'h1', 'value', 0.25), 0);
+    expect(ok.ok).toBe(true);
+    if (ok.ok) expect(ok.doc.segments[0].bezier!.h1).toEqual({ time: a.time + h / 3, value: 0.25 });
+    // a segment that is not a Bézier is left alone
+    expect(patchBezierHandle(panel, 0, 'h1', 'time', 0)).toBe(panel);
+  });
+  it('a shape on the whole curve eases every segment from key to key, keys untouched', () => {
+    const shape = { family: 'back' as const, ease: 'out' as const, params: { overshoot: 1.2 } };
+    const r = checkEdit(shapeEverySegment(panel, shape), 0);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.doc.segments).toHaveLength(panel.segments.length);
+    expect(r.doc.keys.map((k) => [k.time, k.value])).toEqual(panel.keys.map((k) => [k.time, k.value]));
+    const c = prepareCurve(r.doc);
+    for (let i = 0; i < panel.segments.length; i++) {
+      expect(r.doc.segments[i]).toEqual({ kind: 'shape', shape });
+      const a = panel.keys[i], b = panel.keys[i + 1], d = b.time - a.time;
+      // value = a + (b − a)·f(s) at s = ½ (the engine's own shape function, tested against CSS/d3-ease elsewhere)
+      expect(evaluate(c, a.time + d / 2)).toBeCloseTo(a.value + (b.value - a.value) * shapeValue(shape, 0.5, 0, d), 12);
+    }
+  });
   it('field paths and typed numbers', () => {
+    expect(fieldOf('segments[1].bezier.h1.time', 1)).toBe('h1.time');
+    expect(fieldOf('segments[1].bezier', 1)).toBe('bezier');
     expect(fieldOf('keys[2].slopeIn', 2)).toBe('slopeIn');
     expect(fieldOf('segments[2].shape.params.mass', 2)).toBe('mass');
     expect(parseNumberField('1,5', 'value')).toEqual({ ok: true, value: 1.5 });

@@ -6,7 +6,7 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
 import { SHAPE_DEFAULTS, SLOPE_RULES, SEGMENT_KINDS, type CurveDocument, type Key, type Segment, type ShapeFamily } from '../../../../shared/curve';
 import { useEditor, useEditorApi } from '../store/editor-context';
-import { patchKey, patchSegment } from '../store/edits';
+import { patchBezierHandle, patchKey, patchSegment, shapeEverySegment } from '../store/edits';
 import { short } from '../canvas/format';
 import { ConvertNoteLine, ConvertToKeys, ShapePalette, type ConvertNote } from './shape-palette';
 import { checkEdit, parseNumberField, type FieldErrors } from './validate-edit';
@@ -112,6 +112,13 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
     apply(patchSegment(doc, i, { ...seg, shape: { ...seg.shape, params: { ...seg.shape.params, [p]: n.value } } }), p);
   };
 
+  const numberHandle = (handle: 'h1' | 'h2', field: 'time' | 'value') => (text: string) => {
+    const label = `handle ${handle === 'h1' ? 1 : 2} ${field}`;
+    const n = parseNumberField(text, label);
+    if (!n.ok) { setErrors((e) => ({ ...e, [`${handle}.${field}`]: n.error })); return; }
+    apply(patchBezierHandle(doc, i, handle, field, n.value), `${handle}.${field}`);
+  };
+
   const row = (node: ReactNode) => node;
   return (
     <section aria-label={`Key ${i + 1} card`} data-testid="key-card"
@@ -146,6 +153,12 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
                 <ShapePalette doc={doc} i={i} ease={seg.shape.ease}
                   onPick={(shape) => apply(patchSegment(doc, i, { kind: 'shape', shape }), 'shape')} />
                 {errors.shape && <p role="alert" className="col-span-2 text-xs text-brick">{errors.shape}</p>}
+                {doc.segments.length > 1 && (
+                  <button type="button" data-testid="shape-every-segment" className="col-span-2 justify-self-start rounded-sm border border-grid-major px-2 py-0.5 text-xs dark:border-night-line"
+                    onClick={() => apply(shapeEverySegment(doc, seg.shape!), 'shape')}>
+                    Use {seg.shape.family} {seg.shape.ease} on all {doc.segments.length} segments
+                  </button>
+                )}
                 <SelectField label="ease" value={seg.shape.ease} options={['in', 'out', 'in-out']} testId="card-ease"
                   onChange={(v) => apply(patchSegment(doc, i, { ...seg, shape: { ...seg.shape!, ease: v as 'in' | 'out' | 'in-out' } }), 'shape')} />
                 {(PARAMS_BY_FAMILY[seg.shape.family] ?? []).map((p) => (
@@ -153,6 +166,12 @@ export function KeyCard({ position }: { position: { left: number; top?: number; 
                 ))}
               </>
             )}
+            {seg.kind === 'bezier' && seg.bezier && (['h1', 'h2'] as const).map((h) => (
+              <div key={h} className="contents">
+                <NumberField label={`handle ${h === 'h1' ? 1 : 2} time`} unit="s" value={seg.bezier![h].time} error={errors[`${h}.time`]} onCommit={numberHandle(h, 'time')} testId={`card-${h}-time`} />
+                <NumberField label={`handle ${h === 'h1' ? 1 : 2} value`} unit={unit} value={seg.bezier![h].value} error={errors[`${h}.value`]} onCommit={numberHandle(h, 'value')} testId={`card-${h}-value`} />
+              </div>
+            ))}
             {(seg.kind === 'shape' || seg.kind === 'bezier') && <ConvertToKeys doc={doc} i={i} defaultTolerance={valueStep / 20} setNote={setNote} />}
             <ConvertNoteLine note={note} />
             {errors.bezier && <p role="alert" className="col-span-2 text-xs text-brick">{errors.bezier}</p>}

@@ -1,7 +1,8 @@
 /**
  * Key-card edits, validated with the shared schema before they are applied: the edited document is
  * checked with parseCurveDocument and every issue is filed under the card field its path names
- * (keys[i].time → "time", segments[i].shape.params.period → "period"). Pure.
+ * (keys[i].time → "time", segments[i].shape.params.period → "period", segments[i].bezier.h1.time →
+ * "h1.time"). Pure.
  */
 import { parseCurveDocument, type CurveDocument } from '../../../../shared/curve';
 import { settle } from '../store/edits';
@@ -16,6 +17,9 @@ export function fieldOf(path: string, i: number): string {
   const s = `segments[${i}]`;
   if (path.startsWith(k)) return path.slice(k.length);
   if (path.startsWith(`${s}.shape.params.`)) return path.slice(`${s}.shape.params.`.length);
+  // a handle's own field (h1.time, h2.value) when the path names one, else the segment's bezier as a whole
+  const handle = /^\.bezier\.(h[12])\.(time|value)$/.exec(path.slice(s.length));
+  if (handle) return `${handle[1]}.${handle[2]}`;
   if (path.startsWith(`${s}.bezier`)) return 'bezier';
   if (path.startsWith(`${s}.shape`)) return 'shape';
   if (path.startsWith(s)) return 'kind';

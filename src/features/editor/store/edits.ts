@@ -242,3 +242,18 @@ export function patchSegment(doc: CurveDocument, i: number, seg: Segment): Curve
   segments[i] = seg;
   return { ...doc, segments };
 }
+
+/**
+ * The same shape on every segment of the curve, in one edit (one undo step): each segment between two
+ * keys eases from one key's value to the next with the shape (the keys, their times and values stay).
+ */
+export function shapeEverySegment(doc: CurveDocument, shape: NonNullable<Segment['shape']>): CurveDocument {
+  return { ...doc, segments: doc.segments.map(() => ({ kind: 'shape' as const, shape: { ...shape, ...(shape.params ? { params: { ...shape.params } } : {}) } })) };
+}
+
+/** Move one Bézier handle of segment i to a new time or value, without settling (the card validates it). */
+export function patchBezierHandle(doc: CurveDocument, i: number, handle: 'h1' | 'h2', field: 'time' | 'value', v: number): CurveDocument {
+  const seg = doc.segments[i];
+  if (seg?.kind !== 'bezier' || !seg.bezier) return doc;
+  return patchSegment(doc, i, { ...seg, bezier: { ...seg.bezier, [handle]: { ...seg.bezier[handle], [field]: v } } });
+}
