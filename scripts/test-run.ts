@@ -7,6 +7,7 @@
  *
  *   npm test                    everything
  *   npm test -- --only unit     skip the e2e suite (also: --only e2e, --skip-typecheck)
+ *   npm test -- --only e2e e2e/editor.e2e.ts   only those Playwright files
  *   npm test -- tests/unit/curve  extra arguments go to vitest
  */
 import { spawn } from 'node:child_process';
@@ -27,7 +28,10 @@ const bin = (name: string) => join(root, 'node_modules', '.bin', name);
 const args = process.argv.slice(2);
 const only = args.includes('--only') ? args[args.indexOf('--only') + 1] : undefined;
 const skipTypecheck = args.includes('--skip-typecheck');
-const vitestArgs = args.filter((a, i) => a !== '--' && a !== '--only' && args[i - 1] !== '--only' && a !== '--skip-typecheck');
+const restArgs = args.filter((a, i) => a !== '--' && a !== '--only' && args[i - 1] !== '--only' && a !== '--skip-typecheck');
+/** `npm test -- --only e2e e2e/editor.e2e.ts` runs just those Playwright files; other paths go to vitest. */
+const e2eArgs = restArgs.filter((a) => a.endsWith('.e2e.ts'));
+const vitestArgs = restArgs.filter((a) => !a.endsWith('.e2e.ts'));
 
 function run(cmd: string, argv: string[], env: NodeJS.ProcessEnv = process.env): Promise<number> {
   return new Promise((resolveRun) => {
@@ -129,7 +133,7 @@ async function main(): Promise<number> {
         const app = spawn(bin('tsx'), ['server/main.ts'], { cwd: root, env: appEnv, stdio: ['ignore', 'inherit', 'inherit'] });
         try {
           await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000);
-          const code = await run(bin('playwright'), ['test', '--config', 'e2e/playwright.config.ts'], {
+          const code = await run(bin('playwright'), ['test', '--config', 'e2e/playwright.config.ts', ...e2eArgs], {
             ...env,
             E2E_BASE_URL: `http://127.0.0.1:${port}`,
             PLAYWRIGHT_JSON_OUTPUT_NAME: join(reports, 'playwright.json'),
