@@ -1,6 +1,7 @@
 /**
  * The home page's inbox: three read-only queries over pack_versions, version_reviews and channel_moves,
- * each limited to the teams the person belongs to, newest first, at most INBOX_LIMIT rows.
+ * each limited to the teams the person belongs to, newest first, at most INBOX_LIMIT rows; one row more is
+ * read to tell whether older ones exist (`more`), so the page can say the list is cut.
  */
 import { QueryTypes } from 'sequelize';
 import { PackVersion } from '../models';
@@ -32,13 +33,19 @@ const toItem = (r: Row): InboxItem => ({
   path: `/packs/${encodeURIComponent(r.pack_slug)}/versions/${r.number}`,
 });
 
-async function select(sql: string, replacements: Record<string, unknown>): Promise<InboxItem[]> {
-  const rows = await PackVersion.sequelize!.query<Row>(sql, { replacements: { ...replacements, limit: INBOX_LIMIT }, type: QueryTypes.SELECT });
-  return rows.map(toItem);
+export interface InboxList {
+  items: InboxItem[];
+  /** Older rows exist beyond the INBOX_LIMIT newest. */
+  more: boolean;
+}
+
+async function select(sql: string, replacements: Record<string, unknown>): Promise<InboxList> {
+  const rows = await PackVersion.sequelize!.query<Row>(sql, { replacements: { ...replacements, limit: INBOX_LIMIT + 1 }, type: QueryTypes.SELECT });
+  return { items: rows.slice(0, INBOX_LIMIT).map(toItem), more: rows.length > INBOX_LIMIT };
 }
 
 /** Proposed versions (not yet reviewed) in the teams where the person may review, excluding their own. */
-export function reviewsToDo(userId: string): Promise<InboxItem[]> {
+export function reviewsToDo(userId: string): Promise<InboxList> {
   return select(
     `SELECT t.id AS team_id, t.name AS team_name, p.slug AS pack_slug, p.name AS pack_name, v.number, v.state,
             NULL AS channel, u.name AS by_name, v.created_at AS at
@@ -55,7 +62,7 @@ export function reviewsToDo(userId: string): Promise<InboxItem[]> {
 }
 
 /** The person's own proposals in their teams with the state the latest review left; `at` is that review's time. */
-export function myProposals(userId: string): Promise<InboxItem[]> {
+export function myProposals(userId: string): Promise<InboxList> {
   return select(
     `SELECT t.id AS team_id, t.name AS team_name, p.slug AS pack_slug, p.name AS pack_name, v.number, v.state,
             NULL AS channel, ru.name AS by_name, COALESCE(r.created_at, v.created_at) AS at
@@ -73,7 +80,7 @@ export function myProposals(userId: string): Promise<InboxItem[]> {
 }
 
 /** Channel moves (releases and roll-backs) in the person's teams. */
-export function recentReleases(userId: string): Promise<InboxItem[]> {
+export function recentReleases(userId: string): Promise<InboxList> {
   return select(
     `SELECT t.id AS team_id, t.name AS team_name, p.slug AS pack_slug, p.name AS pack_name, v.number, v.state,
             c.name AS channel, u.name AS by_name, cm.created_at AS at

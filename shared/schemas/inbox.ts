@@ -18,4 +18,6 @@ export interface InboxDto {
   reviewsToDo: InboxItem[];
   myProposals: InboxItem[];
   recentReleases: InboxItem[];
+  /** Per list: older items exist beyond the 20 shown. */
+  more: { reviewsToDo: boolean; myProposals: boolean; recentReleases: boolean };
 }

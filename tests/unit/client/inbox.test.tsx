@@ -19,6 +19,7 @@ const INBOX: InboxDto = {
   reviewsToDo: [item(3, 'proposed', { by: 'Pim Animator' })],
   myProposals: [item(2, 'changes-requested', { by: 'Lee Lead' })],
   recentReleases: [item(1, 'approved', { channel: 'shipping', by: 'Lee Lead' })],
+  more: { reviewsToDo: false, myProposals: false, recentReleases: true },
 };
 const ME = {
   user: { id: 'u1', email: 'lee@corvid-lantern.test', name: 'Lee Lead', studioName: 'Corvid Lantern' },
@@ -45,6 +46,9 @@ describe('home page when signed in', () => {
     const releases = screen.getByRole('region', { name: 'Recent releases' });
     expect(within(releases).getByText(/released to shipping by Lee Lead/)).toBeTruthy();
     expect(within(releases).getByRole('link', { name: 'Menu transitions v1' }).getAttribute('href')).toBe('/packs/menu-transitions/versions/1');
+    // a list cut at the newest ones says so; a complete one does not
+    expect(within(releases).getByText(/Showing the 1 newest; older ones/)).toBeTruthy();
+    expect(within(mine).queryByText(/Showing the/)).toBeNull();
     // the signed-out home page's status card is not shown
     expect(screen.queryByRole('region', { name: 'Service status' })).toBeNull();
     await waitFor(() => expect(fetchMock.mock.calls.some(([u]) => String(u) === '/api/me/inbox')).toBe(true));

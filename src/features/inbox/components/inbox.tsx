@@ -30,7 +30,7 @@ function Row({ item, text, onOpenTeam }: { item: InboxItem; text: string; onOpen
   );
 }
 
-function Section({ id, title, empty, items, text, onOpenTeam }: { id: string; title: string; empty: string; items: InboxItem[]; text: (i: InboxItem) => string; onOpenTeam: (teamId: string) => void }) {
+function Section({ id, title, empty, items, more, text, onOpenTeam }: { id: string; title: string; empty: string; items: InboxItem[]; more: boolean; text: (i: InboxItem) => string; onOpenTeam: (teamId: string) => void }) {
   return (
     <section aria-labelledby={id} className="rounded-md border border-grid-major/70 bg-card/80 p-4 dark:border-night-line dark:bg-night-card/80">
       <h2 id={id} className="text-lg font-semibold">{title}</h2>
@@ -41,6 +41,7 @@ function Section({ id, title, empty, items, text, onOpenTeam }: { id: string; ti
           {items.map((i) => <Row key={`${i.team.id}/${i.pack.slug}/${i.version}/${i.channel ?? ''}/${i.at}`} item={i} text={text(i)} onOpenTeam={onOpenTeam} />)}
         </ul>
       )}
+      {more && <p className="mt-2 text-xs text-ink/65 dark:text-paper/65">Showing the {items.length} newest; older ones are on each pack's versions list.</p>}
     </section>
   );
 }
@@ -50,22 +51,22 @@ export function Inbox({ canReview, onOpenTeam }: Props) {
   const inbox = useInbox(true);
   if (inbox.isPending) return <p role="status" className="text-sm">Loading what waits for you…</p>;
   if (inbox.isError) return <p role="alert" className="text-sm">Could not load what waits for you: {inbox.error.message}</p>;
-  const { reviewsToDo, myProposals, recentReleases } = inbox.data;
+  const { reviewsToDo, myProposals, recentReleases, more } = inbox.data;
   return (
     <div className="grid gap-6">
       {canReview && (
         <Section
           id="inbox-reviews" title="Reviews to do" empty="No proposed versions wait for your review."
-          items={reviewsToDo} text={(i) => `proposed by ${i.by ?? 'a removed account'}`} onOpenTeam={onOpenTeam}
+          items={reviewsToDo} more={more?.reviewsToDo ?? false} text={(i) => `proposed by ${i.by ?? 'a removed account'}`} onOpenTeam={onOpenTeam}
         />
       )}
       <Section
         id="inbox-proposals" title="Your proposals" empty="You have not proposed a version yet."
-        items={myProposals} text={(i) => (STATE_WORDS[i.state] ?? i.state) + (i.by ? ` (by ${i.by})` : '')} onOpenTeam={onOpenTeam}
+        items={myProposals} more={more?.myProposals ?? false} text={(i) => (STATE_WORDS[i.state] ?? i.state) + (i.by ? ` (by ${i.by})` : '')} onOpenTeam={onOpenTeam}
       />
       <Section
         id="inbox-releases" title="Recent releases" empty="No channel has moved in your teams yet."
-        items={recentReleases} text={(i) => `released to ${i.channel ?? 'a channel'} by ${i.by ?? 'a removed account'}`} onOpenTeam={onOpenTeam}
+        items={recentReleases} more={more?.recentReleases ?? false} text={(i) => `released to ${i.channel ?? 'a channel'} by ${i.by ?? 'a removed account'}`} onOpenTeam={onOpenTeam}
       />
     </div>
   );
