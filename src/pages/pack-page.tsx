@@ -17,6 +17,7 @@ import { useVersions } from '../features/packs/api/versions';
 import { ProposeVersionForm } from '../features/packs/components/propose-version-form';
 import { VersionsList } from '../features/packs/components/versions-list';
 import { ChannelsPanel } from '../features/packs/components/channels-panel';
+import { BulkUploadPanel } from '../features/packs/bulk-upload-panel';
 import { RequireSignIn } from './require-sign-in';
 
 /** /packs/:pack: one pack's curves as a grid of cards with sparklines, filters, reorder, move and copy. */
@@ -119,6 +120,7 @@ function PackOfTeam({ teamId, role, slug }: { teamId: string; role: Role; slug: 
           })}
         </ul>
       </CurveDnd>
+      {canEdit ? <BulkUploadPanel teamId={teamId} slug={slug} /> : null}
 
       <Card className="mt-8 p-5">
         <h2 className="text-lg font-semibold">Versions</h2>
