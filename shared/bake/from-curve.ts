@@ -5,6 +5,11 @@
 import { curveBreaks, prepareCurve, segmentDerivativeBound, segmentPolynomial, segmentValue, SEGMENT_KINDS, type CurveDocument, type PreparedCurve } from '../curve';
 import type { BakeSource } from './source';
 
+// The hot evaluators held in module constants: once bundled to CommonJS (tsx, the server build) every
+// call through an imported binding is a getter call on the module's exports (two through an index file).
+const valueOf = segmentValue;
+const boundOf = segmentDerivativeBound;
+
 export function sourceFromPrepared(c: PreparedCurve, name = c.doc.name): BakeSource {
   const n = c.count - 1;
   const polys: (Float64Array | null)[] = [];
@@ -20,9 +25,9 @@ export function sourceFromPrepared(c: PreparedCurve, name = c.doc.name): BakeSou
     name,
     times: c.times,
     kinds: Array.from(c.kinds, (k) => SEGMENT_KINDS[k]),
-    value: (i, t, order) => segmentValue(c, i, t, order as 0 | 1 | 2 | 3 | 4),
+    value: (i, t, order) => valueOf(c, i, t, order as 0 | 1 | 2 | 3 | 4),
     poly: (i) => polys[i],
-    bound: (i, order, ta, tb) => segmentDerivativeBound(c, i, order as 1 | 2 | 3 | 4, ta, tb),
+    bound: (i, order, ta, tb) => boundOf(c, i, order as 1 | 2 | 3 | 4, ta, tb),
     endValue: c.values[c.count - 1],
     cuts,
     cutOrders,

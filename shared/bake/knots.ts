@@ -5,10 +5,17 @@ import type { Profile } from './profile';
 import { encodeArray, minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Table } from './table';
 
+// Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
+// call through an imported binding into a getter call on the exporting module).
+const segmentAt_ = segmentAt;
+const encodeArray_ = encodeArray;
+const minMax_ = minMax;
+const makeQuantizer_ = makeQuantizer;
+
 /** Non-empty segment holding t from the left (the one ending at t when t is a key). */
 export function segmentLeftOf(src: BakeSource, t: number): number {
   const S = src.times;
-  let i = segmentAt(src, t);
+  let i = segmentAt_(src, t);
   if (S[i] >= t) {
     let j = i - 1;
     while (j >= 0 && !(S[j + 1] > S[j])) j--;
@@ -25,7 +32,7 @@ export function leftValue(src: BakeSource, t: number, order: number): number {
 
 /** f^(order)(t⁺): the right value (the segment holding t; at the end the last segment's left limit). */
 export function rightValue(src: BakeSource, t: number, order: number): number {
-  const i = segmentAt(src, t);
+  const i = segmentAt_(src, t);
   return src.value(i, Math.min(Math.max(t, src.times[i]), src.times[i + 1]), order);
 }
 
@@ -35,12 +42,12 @@ export function assembleTable(
   qv?: Quantizer, qm?: Quantizer,
 ): Table {
   const e = profile.encoding;
-  const [vlo, vhi] = minMax(values);
-  const ev = encodeArray(qv ?? makeQuantizer(e, vlo, vhi), values);
+  const [vlo, vhi] = minMax_(values);
+  const ev = encodeArray_(qv ?? makeQuantizer_(e, vlo, vhi), values);
   let es = null;
   if (slopes) {
-    const [slo, shi] = minMax(slopes);
-    es = encodeArray(qm ?? makeQuantizer(e, slo, shi), slopes);
+    const [slo, shi] = minMax_(slopes);
+    es = encodeArray_(qm ?? makeQuantizer_(e, slo, shi), slopes);
   }
   const n = times.length;
   return {

@@ -23,6 +23,16 @@ import { cubicAt, hermiteCoeffs, linearCoeffs, maxAbsCubic, MAX_SLOT, shiftCubic
 import { evalTable, type Table } from './table';
 import { nextUpF32 } from './encoding';
 
+// Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
+// call through an imported binding into a getter call on the exporting module).
+const cubicAt_ = cubicAt;
+const hermiteCoeffs_ = hermiteCoeffs;
+const linearCoeffs_ = linearCoeffs;
+const maxAbsCubic_ = maxAbsCubic;
+const shiftCubic_ = shiftCubic;
+const evalTable_ = evalTable;
+const nextUpF32_ = nextUpF32;
+
 export type Method = 'exact' | 'sampled+bound';
 
 export interface ErrorMeasure {
@@ -72,9 +82,9 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
     return TAB;
   }
   const H = T[k + 1] - T[k];
-  if (tab.kernel === 'hermite' && tab.slopes) hermiteCoeffs(V[k], tab.slopes[k], V[k + 1], tab.slopes[k + 1], H, TAB);
-  else linearCoeffs(V[k], V[k + 1], H, TAB);
-  return shiftCubic(TAB, x0 - T[k]);
+  if (tab.kernel === 'hermite' && tab.slopes) hermiteCoeffs_(V[k], tab.slopes[k], V[k + 1], tab.slopes[k + 1], H, TAB);
+  else linearCoeffs_(V[k], V[k + 1], H, TAB);
+  return shiftCubic_(TAB, x0 - T[k]);
 }
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
@@ -91,15 +101,15 @@ function record(err: number, at: number, cert: number): void {
 function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
   const p = src.poly(i)!;
   SRC[0] = p[0]; SRC[1] = p[1]; SRC[2] = p[2]; SRC[3] = p[3];
-  shiftCubic(SRC, x0 - src.times[i]);
+  shiftCubic_(SRC, x0 - src.times[i]);
   DIFF[0] = SRC[0] - TAB[0]; DIFF[1] = SRC[1] - TAB[1]; DIFF[2] = SRC[2] - TAB[2]; DIFF[3] = SRC[3] - TAB[3];
-  const e = maxAbsCubic(DIFF, x1 - x0);
+  const e = maxAbsCubic_(DIFF, x1 - x0);
   record(e, x0 + MAX_SLOT[1], e);
 }
 
 /** |f − p| at t (TAB holds the table cubic about `origin`). */
 function gAt(src: BakeSource, i: number, t: number, origin: number): number {
-  return Math.abs(src.value(i, t, 0) - cubicAt(TAB, t - origin));
+  return Math.abs(src.value(i, t, 0) - cubicAt_(TAB, t - origin));
 }
 
 /** max |p''| and max |p'| of the table cubic on [x0, x1] (linear in u for p''; p' bounded by |c1| + 2|c2|u + 3|c3|u²). */
@@ -203,7 +213,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
         while (c < cuts.length && cuts[c] <= x0) c++;
         if (c < cuts.length && cuts[c] < x1) x1 = cuts[c];
       }
-      if (x1 > x0 && nextUpF32(x0) < x1) {
+      if (x1 > x0 && nextUpF32_(x0) < x1) {
         tableCoeffs(tab, k, x0);
         if (exact) exactPiece(src, i, x0, x1);
         else sampledPiece(src, i, x0, x1, x0, estimate ? tolAbs : slackAbs, maxSamples, estimate, 0);
@@ -217,7 +227,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   // the end point itself (a step into the last key shows only there)
   if (certified > stopAbove) return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
-    const e = Math.abs(src.endValue - evalTable(tab, B));
+    const e = Math.abs(src.endValue - evalTable_(tab, B));
     record(e, B, e);
   }
   return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };

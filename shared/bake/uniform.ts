@@ -26,6 +26,13 @@ import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
 
+// Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
+// call through an imported binding into a getter call on the exporting module).
+const sourceValue_ = sourceValue;
+const measureError_ = measureError;
+const uniformTimes_ = uniformTimes;
+const assembleTable_ = assembleTable;
+
 export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
 /** Search-and-certify rounds before giving up (each round fails one more count). */
@@ -37,21 +44,21 @@ export interface UniformResult { table: Table; measure: ErrorMeasure; tried: Map
 export function uniformTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): Table {
   const S = src.times;
   const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
-  const times = uniformTimes(A, B, n);
+  const times = uniformTimes_(A, B, n);
   const values = new Float64Array(n);
   const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
   let b = 0;
   for (let k = 0; k < n; k++) {
     const t = times[k];
-    values[k] = sourceValue(src, t, 0);
+    values[k] = sourceValue_(src, t, 0);
     if (slopes) {
       while (b < breaks.length && breaks[b].time < t) b++;
       const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
-      slopes[k] = br ? 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1)) : sourceValue(src, t, 1);
+      slopes[k] = br ? 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1)) : sourceValue_(src, t, 1);
       if (k === n - 1) slopes[k] = src.value(lastSeg(src), Math.min(t, S[S.length - 1]), 1);
     }
   }
-  return assembleTable(profile, times, null, values, slopes);
+  return assembleTable_(profile, times, null, values, slopes);
 }
 
 function lastSeg(src: BakeSource): number {
@@ -100,11 +107,11 @@ export function bakeUniform(
       // (every sample is a true error, so a window above tol is a proof that the whole table fails)
       if (!Number.isNaN(failAt)) {
         const w = (4 * (B - A)) / Math.max(1, n - 1);
-        const win = measureError(src, table, winOpts, Math.max(A, failAt - w), Math.min(B, failAt + w));
+        const win = measureError_(src, table, winOpts, Math.max(A, failAt - w), Math.min(B, failAt + w));
         if (win.certified > tol) e = win.certified;
       }
       if (e === Infinity) {
-        const m = measureError(src, table, estOpts);
+        const m = measureError_(src, table, estOpts);
         e = m.certified;
         if (e > tol) failAt = m.at;
       }
@@ -117,7 +124,7 @@ export function bakeUniform(
     const n = cand.at(idx);
     const table = build(n);
     if (!table) { tried.set(n, Infinity); return false; }
-    const measure = measureError(src, table, opts);
+    const measure = measureError_(src, table, opts);
     tried.set(n, measure.certified);
     tables.set(n, { table, measure });
     return measure.certified <= tol;

@@ -53,6 +53,29 @@ export function bezierSolve(x0: number, x1: number, x2: number, x3: number, t: n
   return s;
 }
 
+/**
+ * bezierSolve(0, x1, x2, 1, X) with a small memo of the last SOLVE_SLOTS results (a pure function of
+ * x1, x2 and X, so a hit returns the very same double). The baker asks for the same time several times
+ * in a row: a table entry's value and slope, the derivative bound of the interval on each side, the error
+ * samples at the interval's ends.
+ */
+const SOLVE_SLOTS = 8;
+const SOLVE_KEYS = new Float64Array(3 * SOLVE_SLOTS).fill(Number.NaN);
+const SOLVE_VALUES = new Float64Array(SOLVE_SLOTS);
+let solveNext = 0;
+export function bezierSolveUnit(x1: number, x2: number, X: number): number {
+  for (let j = 0; j < SOLVE_SLOTS; j++) {
+    const o = 3 * j;
+    if (SOLVE_KEYS[o] === X && SOLVE_KEYS[o + 1] === x1 && SOLVE_KEYS[o + 2] === x2) return SOLVE_VALUES[j];
+  }
+  const s = bezierSolve(0, x1, x2, 1, X);
+  const o = 3 * solveNext;
+  SOLVE_KEYS[o] = X; SOLVE_KEYS[o + 1] = x1; SOLVE_KEYS[o + 2] = x2;
+  SOLVE_VALUES[solveNext] = s;
+  solveNext = (solveNext + 1) % SOLVE_SLOTS;
+  return s;
+}
+
 /** The Bernstein cubic p0..p3 or its derivative d^k/ds^k (k = 0..3; 0 for k ≥ 4) at s. */
 export function bernstein(p0: number, p1: number, p2: number, p3: number, s: number, k: number): number {
   const c = 3 * (p1 - p0);
@@ -75,7 +98,7 @@ export function bernstein(p0: number, p1: number, p2: number, p3: number, s: num
 export function bezierEase(
   x1: number, x2: number, y0: number, y1: number, y2: number, y3: number, X: number, order: number,
 ): number {
-  const s = bezierSolve(0, x1, x2, 1, X);
+  const s = bezierSolveUnit(x1, x2, X);
   if (order === 0) return bernstein(y0, y1, y2, y3, s, 0);
   const xd1 = bernstein(0, x1, x2, 1, s, 1);
   const yd1 = bernstein(y0, y1, y2, y3, s, 1);
@@ -130,8 +153,8 @@ function minXSpeed(x1: number, x2: number, a: number, b: number): number {
 export function bezierEaseBound(
   x1: number, x2: number, y0: number, y1: number, y2: number, y3: number, order: number, Xa: number, Xb: number,
 ): number {
-  const sa = Math.max(0, bezierSolve(0, x1, x2, 1, Math.min(Xa, Xb)) - 1e-12);
-  const sb = Math.min(1, bezierSolve(0, x1, x2, 1, Math.max(Xa, Xb)) + 1e-12);
+  const sa = Math.max(0, bezierSolveUnit(x1, x2, Math.min(Xa, Xb)) - 1e-12);
+  const sb = Math.min(1, bezierSolveUnit(x1, x2, Math.max(Xa, Xb)) + 1e-12);
   const xmin = minXSpeed(x1, x2, sa, sb);
   if (!(xmin > 0)) return Infinity;
   const X1 = maxAbsDerivative(0, x1, x2, 1, 1, sa, sb);

@@ -6,6 +6,15 @@ import type { PreparedCurve } from './prepare';
 // binding costs a property load per comparison once bundled to CommonJS, in the hottest loop.
 import { shapeDerivativeBound, shapeValue } from './shapes';
 
+// Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
+// call through an imported binding into a getter call on the exporting module).
+const bezierEase_ = bezierEase;
+const bezierEaseBound_ = bezierEaseBound;
+const maxAbsCubic_ = maxAbsCubic;
+const shapeValue_ = shapeValue;
+const shapeDerivativeBound_ = shapeDerivativeBound;
+const SAFETY_ = SAFETY;
+
 /**
  * The value (order 0) or d^k/dt^k (order 1..4) of segment i's own function at time t, without
  * looking at other segments, so the left limit at times[i+1] is segmentValue(c, i, times[i+1]).
@@ -38,7 +47,7 @@ export function segmentValue(c: PreparedCurve, i: number, t: number, order: 0 | 
     case 3 /* KIND_BEZIER */: {
       const b = c.bez;
       const o = 6 * i;
-      const v = bezierEase(b[o], b[o + 1], b[o + 2], b[o + 3], b[o + 4], b[o + 5], (t - t0) / h, order);
+      const v = bezierEase_(b[o], b[o + 1], b[o + 2], b[o + 3], b[o + 4], b[o + 5], (t - t0) / h, order);
       return order === 0 ? v : v / Math.pow(h, order);
     }
     default: {
@@ -46,7 +55,7 @@ export function segmentValue(c: PreparedCurve, i: number, t: number, order: 0 | 
       const v0 = c.values[i];
       const dv = c.values[i + 1] - v0;
       if (!shape) return order === 0 ? v0 : 0;
-      const f = shapeValue(shape, (t - t0) / h, order, h);
+      const f = shapeValue_(shape, (t - t0) / h, order, h);
       return order === 0 ? v0 + dv * f : (dv * f) / Math.pow(h, order);
     }
   }
@@ -70,7 +79,7 @@ export function segmentPolynomial(c: PreparedCurve, i: number): Float64Array | n
  * below the true supremum:
  *   step, zero-length: 0;  linear: |c1| for order 1, else 0;
  *   hermite: exact max of the derivative polynomial over the interval (ends + critical point);
- *   shape:   |Δv|·shapeDerivativeBound(shape, order, sa, sb, h)/h^order (Infinity across a lower-order break);
+ *   shape:   |Δv|·shapeDerivativeBound_(shape, order, sa, sb, h)/h^order (Infinity across a lower-order break);
  *   bezier:  interval bound of the chain-rule formulas (bezierEaseBound)/h^order, Infinity where
  *            the time parameterisation has a vertical tangent.
  * Results carry a relative 1e-12 inflation against rounding.
@@ -96,23 +105,23 @@ export function segmentDerivativeBound(
       const ua = a - t0;
       const ub = b - t0;
       switch (order) {
-        case 1: return maxAbsCubic(q[k + 1], 2 * q[k + 2], 3 * q[k + 3], 0, ua, ub) * SAFETY;
-        case 2: return maxAbsCubic(2 * q[k + 2], 6 * q[k + 3], 0, 0, ua, ub) * SAFETY;
-        case 3: return Math.abs(6 * q[k + 3]) * SAFETY;
+        case 1: return maxAbsCubic_(q[k + 1], 2 * q[k + 2], 3 * q[k + 3], 0, ua, ub) * SAFETY_;
+        case 2: return maxAbsCubic_(2 * q[k + 2], 6 * q[k + 3], 0, 0, ua, ub) * SAFETY_;
+        case 3: return Math.abs(6 * q[k + 3]) * SAFETY_;
         default: return 0;
       }
     }
     case 3 /* KIND_BEZIER */: {
       const o = 6 * i;
       const bz = c.bez;
-      const r = bezierEaseBound(bz[o], bz[o + 1], bz[o + 2], bz[o + 3], bz[o + 4], bz[o + 5], order, (a - t0) / h, (b - t0) / h);
+      const r = bezierEaseBound_(bz[o], bz[o + 1], bz[o + 2], bz[o + 3], bz[o + 4], bz[o + 5], order, (a - t0) / h, (b - t0) / h);
       return r / Math.pow(h, order);
     }
     default: {
       const shape = c.shapes[i];
       const dv = Math.abs(c.values[i + 1] - c.values[i]);
       if (!shape || dv === 0) return 0;
-      return (dv * shapeDerivativeBound(shape, order, (a - t0) / h, (b - t0) / h, h)) / Math.pow(h, order);
+      return (dv * shapeDerivativeBound_(shape, order, (a - t0) / h, (b - t0) / h, h)) / Math.pow(h, order);
     }
   }
 }
