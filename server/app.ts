@@ -8,6 +8,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import type { AppContext } from './context';
 import { errorMiddleware } from './http/error-middleware';
+import { refuseUnstorableText } from './http/text-guard';
 import { apiRouter } from './api-router';
 
 export interface AppOptions {
@@ -43,6 +44,7 @@ export function createApp(ctx: AppContext, opts: AppOptions = {}): Express {
     }),
   );
   app.use(express.json({ limit: '5mb' }));
+  app.use(refuseUnstorableText);
 
   app.use('/api', apiRouter(ctx));
 

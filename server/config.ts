@@ -40,6 +40,13 @@ export const envSchema = z.object({
   /** Sign-in and password-reset attempts allowed per client address in AUTH_RATE_WINDOW_MINUTES. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1, 'must be at least 1').max(100_000).default(10),
   AUTH_RATE_WINDOW_MINUTES: z.coerce.number().min(1, 'must be at least 1 minute').max(24 * 60).default(15),
+  /** Requests per API_V1_RATE_WINDOW_SECONDS to /api/v1 per service token (or per person, or per address). High by default. */
+  API_V1_RATE_LIMIT: z.coerce.number().int().min(1, 'must be at least 1').max(100_000_000).default(1_000_000),
+  API_V1_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1, 'must be at least 1 second').max(24 * 3600).default(60),
+  /** `presigned`: /api/v1 downloads answer 302 to a presigned S3 GET URL instead of streaming the bytes. */
+  TANGENTRY_DOWNLOAD_REDIRECT: z.enum(['off', 'presigned'], { message: 'must be off or presigned' }).default('off'),
+  /** How long a presigned download URL stays valid. */
+  TANGENTRY_DOWNLOAD_REDIRECT_SECONDS: z.coerce.number().int().min(1, 'must be at least 1 second').max(3600, 'at most 3600 seconds').default(60),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 
@@ -60,6 +67,8 @@ export interface Config {
   /** Demo accounts (<role>@corvid-lantern.test) are seeded and listed on the sign-in page: embedded default only. */
   demoAccounts: boolean;
   authRateLimit: { max: number; windowMs: number };
+  /** /api/v1: rate limit per token/person/address, and whether downloads redirect to presigned S3 URLs. */
+  apiV1: { rateLimit: { max: number; windowMs: number }; downloadRedirect: 'off' | 'presigned'; presignSeconds: number };
   logLevel: Env['LOG_LEVEL'];
 }
 
@@ -106,6 +115,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     session: { ttlHours: e.SESSION_TTL_HOURS, secureCookie: e.SESSION_SECURE_COOKIE ?? publicUrl.startsWith('https://') },
     demoAccounts: e.TANGENTRY_EMBEDDED,
     authRateLimit: { max: e.AUTH_RATE_LIMIT, windowMs: e.AUTH_RATE_WINDOW_MINUTES * 60_000 },
+    apiV1: {
+      rateLimit: { max: e.API_V1_RATE_LIMIT, windowMs: e.API_V1_RATE_WINDOW_SECONDS * 1000 },
+      downloadRedirect: e.TANGENTRY_DOWNLOAD_REDIRECT,
+      presignSeconds: e.TANGENTRY_DOWNLOAD_REDIRECT_SECONDS,
+    },
     logLevel: e.LOG_LEVEL,
   };
 }

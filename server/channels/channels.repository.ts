@@ -1,4 +1,5 @@
 /** Channels and their moves in PostgreSQL. The only module that touches Channel and ChannelMove. */
+import { QueryTypes } from 'sequelize';
 import { Channel, ChannelMove, PackVersion, User } from '../models';
 import type { ChannelDto } from '../../shared/schemas/channels';
 
@@ -29,10 +30,14 @@ export async function listChannels(packId: string): Promise<ChannelDto[]> {
 
 /**
  * Points the channel (created if new) at `versionId` and records the move, in one transaction with the
- * channel row locked; moving to the version it already points at records nothing.
+ * pack row locked (SELECT … FOR UPDATE): two leads releasing at once take turns, so the second sees the
+ * first's move as its `from` — and a channel that does not exist yet is created once, not twice (locking
+ * only the channel row left nothing to lock for a new channel: the second insert hit the unique index, a 500).
+ * Moving to the version it already points at records nothing.
  */
 export async function moveChannel(packId: string, name: string, versionId: string, movedBy: string): Promise<ChannelDto> {
   await Channel.sequelize!.transaction(async (transaction) => {
+    await Channel.sequelize!.query('SELECT id FROM packs WHERE id = :id FOR UPDATE', { replacements: { id: packId }, type: QueryTypes.SELECT, transaction });
     let c = await Channel.findOne({ where: { packId, name }, transaction, lock: transaction.LOCK.UPDATE });
     const from = c?.versionId ?? null;
     if (from === versionId) return;

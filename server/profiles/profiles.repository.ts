@@ -4,6 +4,10 @@ import { TargetProfile } from '../models';
 import type { Profile } from '../../shared/bake/profile';
 import type { StoredProfileDto } from '../../shared/schemas/profiles';
 
+/** An id from the URL that is not a UUID matches no row (PostgreSQL would refuse it as uuid syntax: a 500). */
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const uuidParam = (v: string) => (UUID.test(v) ? v : '00000000-0000-0000-0000-000000000000');
+
 /** The API shape (shared with the client) is the stored shape. */
 export type StoredProfile = StoredProfileDto;
 
@@ -24,7 +28,7 @@ export async function listProfiles(teamId: string): Promise<StoredProfile[]> {
 }
 
 export async function findProfile(teamId: string, id: string): Promise<StoredProfile | null> {
-  const row = await TargetProfile.findOne({ where: { teamId, id } });
+  const row = await TargetProfile.findOne({ where: { teamId, id: uuidParam(id) } });
   return row ? toStored(row) : null;
 }
 
@@ -46,11 +50,11 @@ export async function insertProfile(teamId: string, profile: Profile, transactio
 export async function updateProfile(teamId: string, id: string, profile: Profile, expectedVersion: number): Promise<StoredProfile | null> {
   const [count, rows] = await TargetProfile.update(
     { name: profile.name, spec: profile, version: expectedVersion + 1 },
-    { where: { teamId, id, version: expectedVersion }, returning: true },
+    { where: { teamId, id: uuidParam(id), version: expectedVersion }, returning: true },
   );
   return count === 1 && rows[0] ? toStored(rows[0]) : null;
 }
 
 export async function deleteProfile(teamId: string, id: string): Promise<boolean> {
-  return (await TargetProfile.destroy({ where: { teamId, id } })) === 1;
+  return (await TargetProfile.destroy({ where: { teamId, id: uuidParam(id) } })) === 1;
 }
