@@ -17,7 +17,8 @@
  * one-sided slopes where an entry lands exactly on a slope break).
  */
 import type { BakeSource } from './source';
-import { sourceValue } from './source';
+import { firstNonEmpty } from './source';
+import { minMax, makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
 import { measureError, type ErrorMeasure } from './measure';
@@ -28,10 +29,15 @@ import { candidates } from './candidates';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
-const sourceValue_ = sourceValue;
 const measureError_ = measureError;
 const uniformTimes_ = uniformTimes;
 const assembleTable_ = assembleTable;
+const firstNonEmpty_ = firstNonEmpty;
+const minMax_ = minMax;
+const makeQuantizer_ = makeQuantizer;
+const encodeOne_ = encodeOne;
+const decodeOne_ = decodeOne;
+const unormMax_ = unormMax;
 
 export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
@@ -47,18 +53,88 @@ export function uniformTable(src: BakeSource, profile: Profile, n: number, break
   const times = uniformTimes_(A, B, n);
   const values = new Float64Array(n);
   const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
+  uniformData(src, times, values, slopes, breaks);
+  return assembleTable_(profile, times, null, values, slopes);
+}
+
+/**
+ * Exact entry data of a uniform table at `times`: values[k] = sourceValue(t_k), slopes[k] as documented
+ * at the top (mean of the one-sided slopes on a slope break, the last segment's slope at the end). The
+ * segment holding t_k is found by walking forward (the same segment sourceValue's binary search finds:
+ * the largest i < n with S_i ≤ t_k), so each entry costs one evaluation.
+ */
+function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[]): void {
+  const S = src.times;
+  const ns = S.length - 1;
+  const n = times.length;
+  const S0 = S[0], SN = S[ns];
+  let i = 0;
   let b = 0;
   for (let k = 0; k < n; k++) {
     const t = times[k];
-    values[k] = sourceValue_(src, t, 0);
+    let seg = -1;
+    if (t < S0) values[k] = src.value(firstNonEmpty_(src), S0, 0);
+    else if (t >= SN) values[k] = src.endValue;
+    else {
+      while (i + 1 < ns && S[i + 1] <= t) i++;
+      seg = i;
+      values[k] = src.value(i, t, 0);
+    }
     if (slopes) {
       while (b < breaks.length && breaks[b].time < t) b++;
       const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
-      slopes[k] = br ? 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1)) : sourceValue_(src, t, 1);
-      if (k === n - 1) slopes[k] = src.value(lastSeg(src), Math.min(t, S[S.length - 1]), 1);
+      slopes[k] = br ? 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1)) : seg >= 0 ? src.value(seg, t, 1) : 0;
+      if (k === n - 1) slopes[k] = src.value(lastSeg(src), Math.min(t, SN), 1);
     }
   }
-  return assembleTable_(profile, times, null, values, slopes);
+}
+
+/** Reused buffers of the trial tables the search measures and throws away (grown on demand). */
+let bufT = new Float64Array(0), bufV = new Float64Array(0), bufM = new Float64Array(0);
+
+/** decodeOne(q, encodeOne(q, x)) for every x, in place (the same arithmetic, no codes kept). */
+function roundTripInPlace(q: Quantizer, xs: Float64Array): void {
+  const n = xs.length;
+  if (q.encoding === 'f32') { for (let j = 0; j < n; j++) xs[j] = Math.fround(xs[j]); return; }
+  if (q.encoding === 'f16') { for (let j = 0; j < n; j++) xs[j] = decodeOne_(q, encodeOne_(q, xs[j])); return; }
+  const M = unormMax_(q.encoding), off = q.offset, sc = q.scale;
+  for (let j = 0; j < n; j++) {
+    let c = 0;
+    if (sc !== 0) {
+      c = Math.round(((xs[j] - off) / sc) * M);
+      c = c < 0 ? 0 : c > M ? M : c;
+    }
+    xs[j] = off + sc * (c / M);
+  }
+}
+
+/**
+ * A trial table of n entries: the same decoded times, values and slopes as uniformTable(…, n, …) (same
+ * quantizers from the same min/max), in reused buffers; valid until the next call. Throws as
+ * uniformTable does (f16 overflow).
+ */
+function trialTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> {
+  if (bufT.length < n) {
+    const m = Math.max(n, 2 * bufT.length, 64);
+    bufT = new Float64Array(m); bufV = new Float64Array(m); bufM = new Float64Array(m);
+  }
+  const S = src.times;
+  const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
+  const times = bufT.subarray(0, n);
+  const h = (B - A) / (n - 1);
+  for (let k = 0; k < n; k++) times[k] = A + k * h;
+  times[n - 1] = B;
+  const values = bufV.subarray(0, n);
+  const slopes = profile.kernel === 'hermite' ? bufM.subarray(0, n) : null;
+  uniformData(src, times, values, slopes, breaks);
+  const e = profile.encoding;
+  const [vlo, vhi] = minMax_(values);
+  const qv = makeQuantizer_(e, vlo, vhi);
+  let qm: Quantizer | null = null;
+  if (slopes) { const [slo, shi] = minMax_(slopes); qm = makeQuantizer_(e, slo, shi); }
+  roundTripInPlace(qv, values);
+  if (slopes) roundTripInPlace(qm!, slopes);
+  return { kernel: profile.kernel, times, values, slopes };
 }
 
 function lastSeg(src: BakeSource): number {
@@ -100,7 +176,8 @@ export function bakeUniform(
     const n = cand.at(idx);
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
-    const table = build(n);
+    let table: Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> | null;
+    try { table = trialTable(src, profile, n, breaks); } catch { table = null; }
     let e = Infinity;
     if (table) {
       // look first around the last failure: a window of a few entries there rejects most counts at once
