@@ -1,9 +1,9 @@
 /**
  * "Import and export" under the toolbar: motion samples (a CSV/JSON file or pasted text) reduced to
  * keys within a tolerance, with samples before, keys after and the largest error shown before the
- * animator takes them; a pasted CSS easing function; and downloads of the curve in every output
- * format of the baker for one target profile. Imports are one undoable edit each. A read-only editor
- * only exports.
+ * animator takes them; a pasted CSS easing function; a glTF animation channel (./gltf-importer.tsx);
+ * and downloads of the curve in every output format of the baker for one target profile. Imports
+ * are one undoable edit each. A read-only editor only exports.
  */
 import { useState } from 'react';
 import type { Profile } from '../../../../shared/bake';
@@ -12,6 +12,7 @@ import { useEditor, useEditorApi } from '../store/editor-context';
 import { fitView } from '../store/view';
 import { EXPORT_FORMATS, EXPORT_LABEL, exportCurve, type ExportFormat } from './export-files';
 import { importCssEasing, importSamples, parseTolerance, type SamplesImport } from './import-curve';
+import { GltfImporter } from './gltf-importer';
 
 const field = 'rounded-sm border border-grid-major bg-card px-1.5 py-0.5 text-sm dark:border-night-line dark:bg-night-card';
 const button = 'rounded-sm border border-grid-major bg-card px-2 py-0.5 text-xs font-medium hover:border-ink disabled:opacity-40 dark:border-night-line dark:bg-night-card';
@@ -130,6 +131,7 @@ export function ImportExportPanel({ profiles }: { profiles: readonly Profile[] }
       <div className="mt-2 grid gap-2 lg:grid-cols-3">
         {!readOnly && <SamplesImporter />}
         {!readOnly && <CssImporter />}
+        {!readOnly && <GltfImporter />}
         <Exporter profiles={profiles} />
       </div>
     </details>
