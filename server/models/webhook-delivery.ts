@@ -36,6 +36,7 @@ export function initWebhookDelivery(sequelize: Sequelize): void {
   WebhookDelivery.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      webhookId: { type: DataTypes.UUID, allowNull: false },
       eventType: { type: DataTypes.TEXT, allowNull: false },
       eventId: { type: DataTypes.UUID, allowNull: false },
       payload: { type: DataTypes.TEXT, allowNull: false },

@@ -20,6 +20,7 @@ export function initWebhook(sequelize: Sequelize): void {
   Webhook.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      teamId: { type: DataTypes.UUID, allowNull: false },
       url: { type: DataTypes.TEXT, allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       events: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
