@@ -8,4 +8,5 @@ export const COMMANDS: Record<string, () => Promise<{ default: CliCommand }>> = 
   eval: () => import('./commands/eval'),
   fit: () => import('./commands/fit'),
   bake: () => import('./commands/bake'),
+  pull: () => import('./commands/pull'),
 };
