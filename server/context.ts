@@ -11,6 +11,7 @@ import { createMailTransport } from './mail/transport';
 import { createLogger } from './logger';
 import { TeamEvents } from './events/team-events';
 import { registerSubscribers } from './events/subscribers';
+import { startMailOutbox, stopMailOutbox } from './mail/outbox';
 
 /** What every route and service needs, made once per process and passed down (no globals to import). */
 export interface AppContext {
@@ -32,10 +33,12 @@ export function createContext(config: Config, logger: Logger = createLogger(conf
   pgPool.on('error', (err) => logger.warn({ err: err.message }, 'idle session-pool connection failed'));
   const ctx: AppContext = { config, logger, sequelize, s3: createS3Client(config.s3), mail: createMailTransport(config), pgPool, events: new TeamEvents(logger) };
   registerSubscribers(ctx);
+  startMailOutbox(ctx); // retries mail the SMTP server did not take (server/mail/outbox.ts)
   return ctx;
 }
 
 export async function closeContext(ctx: AppContext): Promise<void> {
+  stopMailOutbox(ctx);
   ctx.mail?.close();
   ctx.s3.destroy();
   await ctx.sequelize.close();

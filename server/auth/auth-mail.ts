@@ -1,5 +1,10 @@
-/** The two messages accounts send, as plain text and simple HTML. Links point at config.publicUrl. */
+/**
+ * The two messages accounts send, as plain text and simple HTML. Links point at config.publicUrl.
+ * sendMail stores the message in the mail outbox (server/mail/outbox.ts) and returns: delivery, and
+ * retries while the mail server is down, happen from there.
+ */
 import type { AppContext } from '../context';
+import { queueMail } from '../mail/outbox';
 
 function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
@@ -9,7 +14,7 @@ export async function sendMail(ctx: AppContext, msg: { to: string; subject: stri
   if (!ctx.mail) throw new Error('No SMTP transport is configured (SMTP_URL).');
   const text = [...msg.lines, '', `${msg.linkLabel}: ${msg.link}`, '', '— Tangentry'].join('\n');
   const html = `${msg.lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(msg.link)}">${escapeHtml(msg.linkLabel)}</a></p><p>— Tangentry</p>`;
-  await ctx.mail.sendMail({ from: ctx.config.mailFrom, to: msg.to, subject: msg.subject, text, html });
+  await queueMail(ctx, { to: msg.to, subject: msg.subject, text, html });
 }
 
 export function invitationMail(ctx: AppContext, m: { to: string; inviter: string; teamName: string; studioName: string; role: string; token: string; expiresAt: Date }) {

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { ConnectionError, DatabaseError } from 'sequelize';
 import type { Logger } from 'pino';
 import { HttpError } from './errors';
 
@@ -23,8 +24,36 @@ export const notFoundApi: RequestHandler = (req, res) => {
   res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}.` } });
 };
 
+/**
+ * PostgreSQL error classes that mean "the database is not there right now" (PostgreSQL documentation,
+ * Appendix A: class 08 connection exception, 57P01–57P03 admin/crash shutdown and cannot connect now,
+ * 53300 too many connections), and the socket errors node-postgres passes through.
+ */
+const DB_DOWN_CODES = new Set(['57P01', '57P02', '57P03', '53300', 'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', 'EHOSTUNREACH']);
+const DB_DOWN_MESSAGES = /Connection terminated|connection timeout|terminating connection|the database system is (starting up|shutting down)|Client has encountered a connection error|Connection terminated unexpectedly/i;
+
+/** Whether `err` says the database cannot be reached (a Sequelize ConnectionError, or a pg/socket error). */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  if (err instanceof ConnectionError) return true;
+  for (let e: unknown = err, depth = 0; e && typeof e === 'object' && depth < 4; depth++) {
+    const code = String((e as { code?: unknown }).code ?? '');
+    if (DB_DOWN_CODES.has(code) || code.startsWith('08')) return true;
+    if (e instanceof DatabaseError || e instanceof Error) {
+      if (DB_DOWN_MESSAGES.test((e as Error).message)) return true;
+    }
+    e = (e as { parent?: unknown; original?: unknown; cause?: unknown }).parent ?? (e as { original?: unknown }).original ?? (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
 export function errorMiddleware(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
+    if (isDatabaseUnavailable(err)) {
+      logger.warn({ err: (err as Error)?.message, method: req.method, path: req.path }, 'database unavailable');
+      res.set('Retry-After', '5');
+      res.status(503).json({ error: { code: 'database_unavailable', message: 'The database cannot be reached right now, so the request was not carried out. Try again in a few seconds.' } });
+      return;
+    }
     if (err instanceof HttpError) {
       res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
       return;
