@@ -48,6 +48,17 @@ export const envSchema = z.object({
   /** How long a presigned download URL stays valid. */
   TANGENTRY_DOWNLOAD_REDIRECT_SECONDS: z.coerce.number().int().min(1, 'must be at least 1 second').max(3600, 'at most 3600 seconds').default(60),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Background bakes (server/jobs): `inline` runs a bake worker inside the API process, `off` leaves bakes to `npm run worker`. */
+  TANGENTRY_WORKER: z.enum(['inline', 'off'], { message: 'must be inline or off' }).default('inline'),
+  /** Retries of a failed bake job before the bake is marked failed, the delay before the first (doubling with pg-boss backoff), and how long one attempt may run. */
+  TANGENTRY_BAKE_RETRY_LIMIT: z.coerce.number().int().min(0, 'must be 0–20').max(20, 'must be 0–20').default(2),
+  TANGENTRY_BAKE_RETRY_DELAY_SECONDS: z.coerce.number().int().min(0, 'must be 0–3600 seconds').max(3600, 'must be 0–3600 seconds').default(10),
+  TANGENTRY_BAKE_EXPIRE_SECONDS: z.coerce.number().int().min(1, 'must be 1–86400 seconds').max(86_400, 'must be 1–86400 seconds').default(900),
+  /** How often pg-boss looks for new jobs and runs its maintenance (expiring jobs of a killed worker). */
+  TANGENTRY_JOBS_POLL_SECONDS: z.coerce.number().min(0.5, 'must be at least 0.5 seconds').max(60, 'must be at most 60 seconds').default(1),
+  TANGENTRY_JOBS_MAINTENANCE_SECONDS: z.coerce.number().int().min(1, 'must be at least 1 second').max(3600, 'must be at most 3600 seconds').default(30),
+  /** Test-only: the worker waits this long after each target of a bake (to kill it in the middle). */
+  TANGENTRY_BAKE_DELAY_MS: z.coerce.number().int().min(0, 'must be 0–60000 ms').max(60_000, 'must be 0–60000 ms').default(0),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -70,6 +81,8 @@ export interface Config {
   /** /api/v1: rate limit per token/person/address, and whether downloads redirect to presigned S3 URLs. */
   apiV1: { rateLimit: { max: number; windowMs: number }; downloadRedirect: 'off' | 'presigned'; presignSeconds: number };
   logLevel: Env['LOG_LEVEL'];
+  /** Background bakes with pg-boss (server/jobs). */
+  jobs: { worker: Env['TANGENTRY_WORKER']; retryLimit: number; retryDelaySeconds: number; expireSeconds: number; pollSeconds: number; maintenanceSeconds: number; bakeDelayMs: number };
 }
 
 export class ConfigError extends Error {
@@ -121,5 +134,14 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       presignSeconds: e.TANGENTRY_DOWNLOAD_REDIRECT_SECONDS,
     },
     logLevel: e.LOG_LEVEL,
+    jobs: {
+      worker: e.TANGENTRY_WORKER,
+      retryLimit: e.TANGENTRY_BAKE_RETRY_LIMIT,
+      retryDelaySeconds: e.TANGENTRY_BAKE_RETRY_DELAY_SECONDS,
+      expireSeconds: e.TANGENTRY_BAKE_EXPIRE_SECONDS,
+      pollSeconds: e.TANGENTRY_JOBS_POLL_SECONDS,
+      maintenanceSeconds: e.TANGENTRY_JOBS_MAINTENANCE_SECONDS,
+      bakeDelayMs: e.TANGENTRY_BAKE_DELAY_MS,
+    },
   };
 }

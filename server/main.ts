@@ -12,6 +12,7 @@ import { migrate } from './db/migrate';
 import { seedDemoIfEmpty } from './seed/demo';
 import { createApp } from './app';
 import { ensureBucket } from './storage/s3-client';
+import { startJobs, stopJobs } from './jobs/boss';
 
 export interface RunningServer {
   ctx: AppContext;
@@ -29,6 +30,9 @@ export async function startServer(
   if (applied.length) ctx.logger.info({ applied }, 'migrations applied');
   if (opts.createBucket) await ensureBucket(ctx.s3, config.s3.bucket);
   if (opts.seed && (await seedDemoIfEmpty(ctx))) ctx.logger.info('demo scenario seeded');
+  // pg-boss: this process queues bakes, and bakes them too unless TANGENTRY_WORKER=off (then `npm run worker` does)
+  const jobs = await startJobs(ctx);
+  ctx.logger.info({ worker: jobs.working ? 'inline' : 'off' }, 'background bakes ready');
   const app = createApp(ctx, { clientDir: opts.clientDir, clientMiddleware: opts.clientMiddleware });
   const server = createServer(app);
   await new Promise<void>((resolve, reject) => {
@@ -47,6 +51,7 @@ export async function startServer(
       server.closeIdleConnections();
       setTimeout(() => server.closeAllConnections(), 2_000).unref();
       await closed;
+      await stopJobs(ctx).catch((err) => ctx.logger.warn({ err: (err as Error).message }, 'pg-boss did not stop cleanly'));
       await closeContext(ctx);
     },
   };

@@ -54,16 +54,25 @@ export interface NewVersion {
  * latest. The pack row is locked (SELECT … FOR UPDATE) so two proposals of one pack get v(n+1) and v(n+2).
  */
 export async function insertVersion(v: NewVersion): Promise<VersionDto> {
-  return PackVersion.sequelize!.transaction(async (transaction) => {
-    await PackVersion.sequelize!.query('SELECT id FROM packs WHERE id = :id FOR UPDATE', { replacements: { id: v.packId }, type: QueryTypes.SELECT, transaction });
-    const last = (await PackVersion.max<number, PackVersion>('number', { where: { packId: v.packId }, transaction })) ?? 0;
-    const row = await PackVersion.create({
-      packId: v.packId, number: last + 1, changelog: v.changelog, proposedBy: v.proposedBy, curveCount: v.curveCount,
-      sourceKey: v.source.key, sourceSha256: v.source.sha256, sourceSize: v.source.size, bakeSummary: v.bakeSummary,
-    }, { transaction });
-    const arts = await VersionArtifact.bulkCreate(v.artifacts.map((a, position) => ({ ...a, versionId: row.id, position })), { transaction, returning: true });
-    return toVersion(row, arts, transaction);
-  });
+  return PackVersion.sequelize!.transaction((transaction) => insertVersionIn(transaction, v));
+}
+
+/** insertVersion inside the caller's transaction (the bake worker also marks its bake done in it). */
+export async function insertVersionIn(transaction: Transaction, v: NewVersion): Promise<VersionDto> {
+  await PackVersion.sequelize!.query('SELECT id FROM packs WHERE id = :id FOR UPDATE', { replacements: { id: v.packId }, type: QueryTypes.SELECT, transaction });
+  const last = (await PackVersion.max<number, PackVersion>('number', { where: { packId: v.packId }, transaction })) ?? 0;
+  const row = await PackVersion.create({
+    packId: v.packId, number: last + 1, changelog: v.changelog, proposedBy: v.proposedBy, curveCount: v.curveCount,
+    sourceKey: v.source.key, sourceSha256: v.source.sha256, sourceSize: v.source.size, bakeSummary: v.bakeSummary,
+  }, { transaction });
+  const arts = await VersionArtifact.bulkCreate(v.artifacts.map((a, position) => ({ ...a, versionId: row.id, position })), { transaction, returning: true });
+  return toVersion(row, arts, transaction);
+}
+
+/** A version by its id (for a finished bake). */
+export async function findVersionById(id: string, transaction?: Transaction): Promise<VersionDto | null> {
+  const row = await PackVersion.findByPk(id, { transaction });
+  return row ? toVersion(row, await VersionArtifact.findAll({ where: { versionId: row.id }, transaction }), transaction) : null;
 }
 
 const STATE_AFTER: Record<ReviewDecision, string> = { approve: 'approved', 'request-changes': 'changes-requested' };

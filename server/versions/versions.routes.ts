@@ -5,15 +5,16 @@ import { requireTeam, requireUser } from '../auth/require-role';
 import { principalOf, teamAccessOf } from '../auth/principal';
 import { uuidParam } from '../invitations/invitations.routes';
 import { validateBody, validateQuery } from '../http/validate';
-import { compareQuerySchema, proposeVersionSchema, reviewSchema } from '../../shared/schemas/versions';
+import { compareQuerySchema, reviewSchema } from '../../shared/schemas/versions';
 import * as versions from './versions.service';
 import { notifyProposer } from './review-mail';
 import { getPack } from '../packs/packs.service';
+import { mountBakeRoutes } from './bakes.routes';
 
 /**
  * Pack versions: every member and the team's tokens (limited to their packs) read the manifests and
- * download artifacts; admins, leads and animators (versions.propose) propose. The bake runs inside the
- * propose request (see ./versions.service.ts).
+ * download artifacts; admins, leads and animators (versions.propose) propose. The bake runs in the
+ * background (./bakes.routes.ts, server/jobs).
  */
 export function versionRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -26,18 +27,8 @@ export function versionRoutes(ctx: AppContext): Router {
     res.json({ versions: await versions.listVersions(principalOf(res), team(res), String(req.params.pack)) });
   });
 
-  // POST …/versions { changelog } → 201 { version } once the source and every artifact are stored
-  router.post(base, requireUser(), requireTeam('versions.propose'), validateBody(proposeVersionSchema), async (req, res) => {
-    const p = principalOf(res);
-    if (p.kind !== 'user') throw new Error('unreachable: requireUser lets only people through');
-    const version = await versions.proposeVersion(storage, p, team(res), String(req.params.pack), req.body.changelog, p.user.id);
-    const pack = await getPack(p, team(res), String(req.params.pack));
-    await ctx.events.publish({
-      type: 'version.proposed', teamId: team(res), actorId: p.user.id, pack: { id: pack.id, slug: pack.slug, name: pack.name },
-      subject: { kind: 'version', id: version.id, label: `v${version.number}` }, data: { version: version.number, changelog: version.changelog },
-    });
-    res.status(201).json({ version });
-  });
+  // POST …/versions { changelog } → 202 { bake }; the bake routes (GET …/bakes[/:id], retry) are in ./bakes.routes.ts
+  mountBakeRoutes(router, ctx);
 
   // GET …/versions/:number → { version } with its artifacts (size, SHA-256)
   router.get(`${base}/:number`, requireTeam('team.read'), async (req, res) => {

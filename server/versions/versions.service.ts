@@ -1,26 +1,20 @@
 /**
- * Pack versions. Proposing one, synchronously inside the request (no background queue yet):
- *   1. read the pack's curves and the team's target profiles;
- *   2. build every object with the shared baker (./build-artifacts.ts): the source and, per target,
- *      the JSON tables, the binary pack and (CSS targets) the linear() easings;
- *   3. store each object in the bucket under `sha256/<hex>` (HeadObject first: identical content is reused);
- *   4. only then insert the version and its artifact rows in one transaction.
- * A storage failure in step 3 leaves no version row (objects already stored are content-addressed, so a
- * retry reuses them and no row points at a missing object). A curve that cannot be baked for a target is
- * not a storage failure: the version records it per target with the curve's name and the reason.
+ * Pack versions: reading manifests, downloads, comparisons and reviews. Proposing one is a background
+ * bake (./bakes.service.ts → server/jobs → ./bake-runner.ts): the version row and its artifact rows are
+ * inserted in one transaction only when the source and every artifact are stored. proposeVersion below runs
+ * the same steps in the caller, for tools and tests that need a version at once.
  */
 import type { S3Client } from '@aws-sdk/client-s3';
 import type { Readable } from 'node:stream';
 import type { Principal } from '../auth/principal';
-import { HttpError, badRequest, conflict, notFound } from '../http/errors';
+import { HttpError, badRequest, notFound } from '../http/errors';
 import { getPack } from '../packs/packs.service';
-import { listCurves } from '../packs/packs.repository';
-import { listProfiles } from '../profiles/profiles.repository';
-import { openObject, putContentAddressed, readContentAddressed } from '../storage/content-store';
+import { openObject, readContentAddressed } from '../storage/content-store';
 import type { ArtifactDto, ReviewDecision, VersionComparison, VersionDto } from '../../shared/schemas/versions';
 import type { CurveDocument } from '../../shared/curve';
 import { compareVersions } from './compare-versions';
-import { buildVersion } from './build-artifacts';
+import { runBake } from './bake-runner';
+import { snapshotProposal } from './bakes.service';
 import * as repo from './versions.repository';
 
 export interface Storage {
@@ -40,28 +34,16 @@ export async function getVersion(p: Principal, teamId: string, slug: string, num
   return v;
 }
 
+/**
+ * Proposes and bakes a version in this call (no queue): the same snapshot and bake as the background path.
+ * A failure answers 503 storage_unavailable naming the target and reason; the bake row stays failed.
+ */
 export async function proposeVersion(storage: Storage, p: Principal, teamId: string, slug: string, changelog: string, userId: string): Promise<VersionDto> {
-  const pack = await getPack(p, teamId, slug);
-  if (pack.archived) throw conflict(`Pack "${slug}" is archived; restore it before proposing a version.`, 'pack_archived');
-  const curves = await listCurves(pack.id);
-  if (curves.length === 0) throw badRequest(`Pack "${slug}" has no curves; add one before proposing a version.`, { pack: 'pack: has no curves' });
-  const profiles = (await listProfiles(teamId)).map((s) => s.profile);
-  const built = buildVersion(pack, curves.map((c) => c.document), profiles);
-  const stored: Omit<ArtifactDto, 'id'>[] = [];
-  for (const o of built.objects) {
-    let s;
-    try {
-      s = await putContentAddressed(storage.s3, storage.bucket, o.bytes, o.mediaType);
-    } catch (err) {
-      throw new HttpError(503, 'storage_unavailable', `Could not store the ${o.profileName ? `${o.profileName} ${o.format}` : 'source'} of this version (${(err as Error).message}); no version was created. Try again.`);
-    }
-    stored.push({ profileName: o.profileName, format: o.format, fileName: o.fileName, mediaType: o.mediaType, key: s.key, sha256: s.sha256, size: s.size });
-  }
-  const source = stored[0]!;
-  return repo.insertVersion({
-    packId: pack.id, changelog, proposedBy: userId, curveCount: curves.length,
-    source: { key: source.key, sha256: source.sha256, size: source.size }, bakeSummary: built.summary, artifacts: stored,
-  });
+  const bake = await snapshotProposal(storage, p, teamId, slug, changelog, userId);
+  const outcome = await runBake({ storage }, bake.id, { final: true });
+  if (outcome.kind === 'done') return outcome.version;
+  if (outcome.kind === 'gone') throw notFound(`Pack "${slug}" is gone.`);
+  throw new HttpError(503, 'storage_unavailable', `The bake failed${outcome.failure.target ? ` at ${outcome.failure.target}` : ''} (${outcome.failure.reason}); no version was created.`);
 }
 
 /** The artifact's manifest entry and download name; `open()` streams its bytes from the bucket. */

@@ -16,12 +16,45 @@ export const proposeVersionSchema = z.object({
 });
 export type ProposeVersionInput = z.input<typeof proposeVersionSchema>;
 
-export const ARTIFACT_FORMATS = ['source', 'json', 'binary', 'css'] as const;
+/**
+ * What a version stores: its source, and per target the JSON tables, the binary pack, the C99 header and
+ * the TypeScript module (each with the reference evaluator), glTF 2.0 (animation samplers, buffer inline)
+ * and, for CSS targets, linear() easings.
+ */
+export const ARTIFACT_FORMATS = ['source', 'json', 'binary', 'c', 'ts', 'gltf', 'css'] as const;
 export type ArtifactFormat = (typeof ARTIFACT_FORMATS)[number];
 
 /** Per target profile: how the bake of the pack went (BakeReport totals) and which curves failed and why. */
 export interface BakeSummary extends Omit<PackTotals, 'methods'> {
   failures: { curve: string; error: string }[];
+  /** Curves baked but left out of one output that cannot hold them (glTF needs times ≥ 0, strictly increasing). */
+  omitted?: { curve: string; format: ArtifactFormat; error: string }[];
+}
+
+/**
+ * A proposal being baked in the background (server/jobs). It is not a version: the version appears, with
+ * every artifact stored, when the bake is `done` (then `version` names its number).
+ */
+export const BAKE_STATES = ['queued', 'baking', 'failed', 'done'] as const;
+export type BakeState = (typeof BAKE_STATES)[number];
+
+export interface BakeDto {
+  id: string;
+  packId: string;
+  state: BakeState;
+  changelog: string;
+  proposedBy: { id: string; name: string } | null;
+  curveCount: number;
+  /** Target profiles baked so far, of all the team's targets at the time of the proposal. */
+  progress: { done: number; total: number };
+  /** Why the last attempt failed: the target and curve being baked or stored (when known) and the reason. */
+  failure: { target: string | null; curve: string | null; reason: string } | null;
+  attempts: number;
+  /** The version's number once the bake is done. */
+  version: number | null;
+  source: { key: string; sha256: string; size: number };
+  createdAt: string;
+  updatedAt: string;
 }
 
 export interface ArtifactDto {

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { testApp } from '../support/app';
 import { ORIGIN, createPerson, signIn, teamId, uniqueEmail } from '../support/accounts';
+import { proposeAndWait } from '../support/bakes';
 import { createToken } from '../../server/tokens/tokens.service';
 import type { ChannelDto } from '../../shared/schemas/channels';
 
@@ -33,7 +34,7 @@ describe('channels: release an approved version, keep every move, roll back', ()
   const release = (cookie: string, channel: string, version: unknown) => request(t.app).put(`${base()}/channels/${channel}`).set('Cookie', cookie).set('Origin', ORIGIN).send({ version });
 
   it('only an approved version can be released; leads release, animators cannot', async () => {
-    for (const c of ['v1', 'v2']) expect((await post(animator, `${base()}/versions`, { changelog: c })).status).toBe(201);
+    for (const c of ['v1', 'v2']) expect((await proposeAndWait(t.app, animator, team, 'menu-transitions', c)).version.number).toBe(Number(c.slice(1)));
     const refused = await release(lead, 'shipping', 1);
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('not_approved');

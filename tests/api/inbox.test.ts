@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { testApp } from '../support/app';
 import { ORIGIN, createPerson, signIn, teamId, uniqueEmail } from '../support/accounts';
+import { proposeAndWait } from '../support/bakes';
 import type { InboxDto, InboxItem } from '../../shared/schemas/inbox';
 
 const PASSWORD = 'inbox password 1';
@@ -39,7 +40,7 @@ describe('GET /api/me/inbox: reviews to do, my proposals, recent releases — ea
   const of = (items: InboxItem[], n: number) => items.filter((i) => i.pack.slug === PACK && i.team.id === team && i.version === n);
 
   it('propose → the lead has a review to do, the animator sees it proposed, the outsider sees nothing', async () => {
-    const v = (await post(animator, `${base()}/versions`, { changelog: 'softer settle' })).body.version.number as number;
+    const v = (await proposeAndWait(t.app, animator, team, PACK, 'softer settle')).version.number;
     const forLead = of((await inbox(lead)).reviewsToDo, v);
     expect(forLead).toHaveLength(1);
     expect(forLead[0]).toMatchObject({ state: 'proposed', by: 'Inbox animator', path: `/packs/${PACK}/versions/${v}`, team: { id: team } });
@@ -61,7 +62,7 @@ describe('GET /api/me/inbox: reviews to do, my proposals, recent releases — ea
     expect(of((await inbox(animator)).myProposals, v1)).toMatchObject([{ state: 'changes-requested', by: 'Inbox lead' }]);
     expect(of((await inbox(lead)).reviewsToDo, v1)).toEqual([]); // reviewed: no longer waiting
 
-    const v2 = (await post(animator, `${base()}/versions`, { changelog: 'settle fixed' })).body.version.number as number;
+    const v2 = (await proposeAndWait(t.app, animator, team, PACK, 'settle fixed')).version.number;
     expect(of((await inbox(lead)).reviewsToDo, v2)).toHaveLength(1);
     expect((await post(lead, `${base()}/versions/${v2}/reviews`, { decision: 'approve', comment: '' })).status).toBe(201);
     const mine = (await inbox(animator)).myProposals.filter((i) => i.pack.slug === PACK && [v1, v2].includes(i.version));

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { testApp } from '../support/app';
 import { ORIGIN, createPerson, signIn, teamId, uniqueEmail, waitForMail } from '../support/accounts';
+import { proposeAndWait } from '../support/bakes';
 import type { CurveDocument, Key, Segment } from '../../shared/curve';
 import type { CurveDto } from '../../shared/schemas/packs';
 import type { VersionComparison, VersionDto } from '../../shared/schemas/versions';
@@ -47,14 +48,14 @@ describe('review: compare versions, approve or request changes', () => {
     const lift = await add(doc('lift', [key(0, 0, 1), key(0.5, 0.8, 0.5), key(1, 1)], 'hermite'));
     await add(doc('steady', [key(0, 0.5), key(1, 0.5)], 'linear'));
     const gone = await add(doc('gone', [key(0, 0), key(1, 1)], 'step'));
-    expect((await post(animator, `${base}/versions`, { changelog: 'first' })).status).toBe(201);
+    expect((await proposeAndWait(t.app, animator, team, 'review-test', 'first')).bake.state).toBe('done');
 
     // v2: ramp's middle key 1 → 1.25; lift raised by 0.1 everywhere; gone removed; fresh added
     expect((await put(animator, `${base}/curves/${ramp.id}`, { document: doc('ramp', [key(0, 0), key(1, 1.25), key(2, 0)], 'linear'), revision: 1 })).status).toBe(200);
     expect((await put(animator, `${base}/curves/${lift.id}`, { document: doc('lift', [key(0, 0.1, 1), key(0.5, 0.9, 0.5), key(1, 1.1)], 'hermite'), revision: 1 })).status).toBe(200);
     expect((await request(t.app).delete(`${base}/curves/${gone.id}`).set('Cookie', animator).set('Origin', ORIGIN)).status).toBe(204);
     await add(doc('fresh', [key(0, 1), key(1, 0)], 'linear'));
-    expect((await post(animator, `${base}/versions`, { changelog: 'second' })).body.version.number).toBe(2);
+    expect((await proposeAndWait(t.app, animator, team, 'review-test', 'second')).version.number).toBe(2);
 
     const res = await request(t.app).get(`${base}/versions/2/compare`).set('Cookie', lead);
     expect(res.status).toBe(200);

@@ -9,6 +9,7 @@ import { parseCurveDocument } from '../../shared/curve';
 import type { VersionDto } from '../../shared/schemas/versions';
 import type { CurveDto } from '../../shared/schemas/packs';
 import { PackVersion, VersionArtifact } from '../../server/models';
+import { proposeAndWait, versionOfBake, waitForBake } from '../support/bakes';
 
 const PASSWORD = 'versions password 1';
 const sha256 = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
@@ -21,7 +22,8 @@ describe('pack versions API', () => {
   let first: VersionDto;
 
   beforeAll(async () => {
-    t = await testApp({ label: 'versions', seed: true });
+    // no automatic retry: the injected storage failure below must leave the bake failed, to retry by hand
+    t = await testApp({ label: 'versions', seed: true, env: { TANGENTRY_BAKE_RETRY_LIMIT: '0' } });
     team = await teamId('ui-motion');
     const cookies: string[] = [];
     for (const role of ['animator', 'viewer'] as const) {
@@ -36,6 +38,7 @@ describe('pack versions API', () => {
   const url = (slug = 'menu-transitions') => `/api/teams/${team}/packs/${slug}/versions`;
   const propose = (changelog: unknown, cookie = animator, slug?: string) =>
     request(t.app).post(url(slug)).set('Cookie', cookie).set('Origin', ORIGIN).send({ changelog });
+  const proposeDone = (changelog: string, slug = 'menu-transitions') => proposeAndWait(t.app, animator, team, slug, changelog);
   const bytesOf = async (key: string) => {
     const r = await t.ctx.s3.send(new GetObjectCommand({ Bucket: t.config.s3.bucket, Key: key }));
     return new Uint8Array(await r.Body!.transformToByteArray());
@@ -43,14 +46,15 @@ describe('pack versions API', () => {
 
   it('an animator proposes v1: source and every target’s artifacts are in the bucket with the recorded SHA-256', async () => {
     const started = Date.now();
-    const res = await propose('First cut of the menu motion.');
+    const { bake, version } = await proposeDone('First cut of the menu motion.');
     const ms = Date.now() - started;
-    expect(res.status).toBe(201);
-    first = res.body.version;
+    expect(bake).toMatchObject({ state: 'done', version: 1, progress: { done: 4, total: 4 } });
+    first = version;
     expect(first).toMatchObject({ number: 1, changelog: 'First cut of the menu motion.', state: 'proposed', curveCount: 4 });
-    // the seeded team has the brief's four targets; JSON + binary each, CSS for Web
+    // the seeded team has the brief's four targets; JSON, binary, C99 header, TypeScript module and glTF each, CSS for Web
+    const per = (t: string) => ['json', 'binary', 'c', 'ts', 'gltf'].map((f) => `${t}:${f}`);
     expect(first.artifacts.map((a) => `${a.profileName ?? '-'}:${a.format}`)).toEqual([
-      '-:source', 'Console:json', 'Console:binary', 'Handheld:json', 'Handheld:binary', 'Mobile:json', 'Mobile:binary', 'Web:json', 'Web:binary', 'Web:css',
+      '-:source', ...per('Console'), ...per('Handheld'), ...per('Mobile'), ...per('Web'), 'Web:css',
     ]);
     for (const a of first.artifacts) {
       expect(a.key).toBe(`sha256/${a.sha256}`);
@@ -59,7 +63,7 @@ describe('pack versions API', () => {
       expect(sha256(await bytesOf(a.key))).toBe(a.sha256);
     }
     expect(first.source).toEqual({ key: first.artifacts[0]!.key, sha256: first.artifacts[0]!.sha256, size: first.artifacts[0]!.size });
-    console.log(`propose v1 of menu-transitions (4 curves × 4 targets, bake + 10 objects): ${ms} ms`);
+    console.log(`propose v1 of menu-transitions (4 curves × 4 targets, background bake + ${first.artifacts.length} objects, until the version is readable): ${ms} ms`);
   });
 
   it('the stored source holds every curve document of the pack, valid and in order', async () => {
@@ -100,13 +104,12 @@ describe('pack versions API', () => {
   });
 
   it('a second identical version reuses every stored object (no upload) and gets the next number', async () => {
+    // the in-process worker shares t.ctx.s3, so the spy sees the request's and the bake's storage calls
     const send = vi.spyOn(t.ctx.s3, 'send');
-    const res = await propose('Same curves, proposed again.');
+    const { version: second } = await proposeDone('Same curves, proposed again.');
     const puts = send.mock.calls.filter(([c]) => c instanceof PutObjectCommand).length;
     const heads = send.mock.calls.filter(([c]) => c instanceof HeadObjectCommand).length;
     send.mockRestore();
-    expect(res.status).toBe(201);
-    const second: VersionDto = res.body.version;
     expect(second.number).toBe(2);
     expect(puts).toBe(0);
     expect(heads).toBe(first.artifacts.length);
@@ -137,15 +140,19 @@ describe('pack versions API', () => {
       return real(cmd as never);
     }) as never);
     const res = await propose('Louder start.', animator, 'audio-fades');
+    expect(res.status).toBe(202);
+    const failed = await waitForBake(t.app, animator, team, 'audio-fades', res.body.bake.id);
     send.mockRestore();
-    expect(res.status).toBe(503);
-    expect(res.body.error.code).toBe('storage_unavailable');
-    expect(res.body.error.message).toMatch(/no version was created/);
+    expect(failed.state).toBe('failed');
+    expect(failed.failure?.reason).toMatch(/could not store .*injected storage failure/);
+    expect(failed.failure?.target).toBeTruthy();
+    expect(failed.version).toBeNull();
     expect([await PackVersion.count(), await VersionArtifact.count()]).toEqual([versions, artifacts]);
     expect((await request(t.app).get(url('audio-fades')).set('Cookie', viewer)).body.versions).toEqual([]);
-    const retry = await propose('Louder start.', animator, 'audio-fades');
-    expect(retry.status).toBe(201);
-    expect(retry.body.version.number).toBe(1);
+    const retry = await request(t.app).post(`/api/teams/${team}/packs/audio-fades/bakes/${failed.id}/retry`).set('Cookie', animator).set('Origin', ORIGIN);
+    expect(retry.status).toBe(202);
+    const done = await waitForBake(t.app, animator, team, 'audio-fades', failed.id);
+    expect((await versionOfBake(t.app, animator, team, 'audio-fades', done)).number).toBe(1);
   });
 
   it('a viewer cannot propose; an unknown version is 404', async () => {

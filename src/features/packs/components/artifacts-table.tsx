@@ -1,6 +1,6 @@
 import type { ArtifactDto } from '../../../../shared/schemas/versions';
 
-const FORMAT_LABEL: Record<ArtifactDto['format'], string> = { source: 'source (curve documents)', json: 'JSON tables', binary: 'binary pack', css: 'CSS linear()' };
+const FORMAT_LABEL: Record<ArtifactDto['format'], string> = { source: 'source (curve documents)', json: 'JSON tables', binary: 'binary pack', c: 'C99 header', ts: 'TypeScript module', gltf: 'glTF 2.0', css: 'CSS linear()' };
 
 /** Bytes in mono with a unit: 812 B, 3.4 KiB. */
 export function formatBytes(n: number): string {
