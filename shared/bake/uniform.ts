@@ -26,6 +26,7 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
+import { LazyTrials } from './uniform-trial';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -171,14 +172,33 @@ export function bakeUniform(
   const build = (n: number): Table | null => {
     try { return uniformTable(src, profile, n, breaks); } catch { return null; }
   };
+  // lazy trials (./uniform-trial.ts) where the source is sampled (bezier, shapes): evaluations are costly there
+  let sampledSource = false;
+  for (let i = 0; i + 1 < S.length; i++) if (S[i + 1] > S[i] && !src.poly(i)) sampledSource = true;
+  const lazy = sampledSource && LazyTrials.applies(profile) ? new LazyTrials(src, profile, breaks) : null;
   // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
+    let e = Infinity;
+    if (lazy) {
+      const hasWindow = !Number.isNaN(failAt);
+      const w = (4 * (B - A)) / Math.max(1, n - 1);
+      const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
+      try {
+        const r = lazy.run(n, wa, wb, hasWindow, tol,
+          (v) => measureError_(src, v, winOpts, wa, wb).certified,
+          (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
+        e = r.e;
+        if (r.fullAt !== null && e > tol) failAt = r.fullAt;
+      } catch { e = Infinity; }
+      estimates.set(n, e);
+      if (e > tol) tried.set(n, Infinity);
+      return e <= tol;
+    }
     let table: Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> | null;
     try { table = trialTable(src, profile, n, breaks); } catch { table = null; }
-    let e = Infinity;
     if (table) {
       // look first around the last failure: a window of a few entries there rejects most counts at once
       // (every sample is a true error, so a window above tol is a proof that the whole table fails)
