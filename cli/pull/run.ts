@@ -32,7 +32,8 @@ against the SHA-256 of the manifest and written atomically (temp file, fsync, re
   --pack PACK       the pack slug, e.g. menu-transitions
   --channel NAME    the channel, e.g. shipping
   --target TARGET   a target file stem (handheld, handheld-tight …); repeat it, list several with commas, or "all"
-  --format FORMAT   json, binary, c, ts, gltf, css …; repeat it, list several with commas, or "all"
+  --format FORMAT   json, binary, c, ts, gltf, css …; repeat it, list several with commas, or "all";
+                    every named format of every named target that has it (css exists only for CSS targets)
   --out DIR         the folder to write into (created if missing); it keeps .tangentry-pull.json
   --team ID|SLUG    the team (id or slug); default: the one team the token belongs to
   --json            print one JSON object instead of one line per file
