@@ -8,6 +8,7 @@ import { ReviewForm } from '../features/packs/components/review-form';
 import { ArtifactsTable } from '../features/packs/components/artifacts-table';
 import { BakeSummaryTable } from '../features/packs/components/bake-summary-table';
 import { RequireSignIn } from './require-sign-in';
+import { VersionComments } from '../features/comments/components/version-comments';
 
 /** /packs/:pack/versions/:number: an immutable pack version, its bake per target and its downloads. */
 export function VersionPage() {
@@ -62,6 +63,7 @@ function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: R
         </div>
         {roleCan(role, 'versions.review') ? <div className="mt-4 border-t border-grid-minor pt-4 dark:border-night-line"><ReviewForm teamId={teamId} slug={slug} number={v.number} /></div> : null}
       </Card>
+      <VersionComments teamId={teamId} slug={slug} version={v} />
       <Card className="mt-6 p-5">
         <h2 className="text-lg font-semibold">Bake per target</h2>
         <div className="mt-3 overflow-x-auto"><BakeSummaryTable summary={v.bakeSummary} /></div>

@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import { UserMenu } from '../../features/auth/components/user-menu';
 import { TeamSwitcher } from '../../features/teams/components/team-switcher';
+import { NoticesIndicator } from '../../features/notifications/components/notices-indicator';
 import { useCurrentTeam } from '../use-current-team';
 
 /**
@@ -14,6 +15,7 @@ export function TopBarAccountSlot() {
     <div className="flex items-center gap-3" data-slot="account">
       {user ? (
         <>
+          <NoticesIndicator onFollow={(n) => setTeamId(n.team.id)} />
           <TeamSwitcher teams={teams} currentId={team?.id ?? null} onChange={setTeamId} />
           <UserMenu name={user.name} />
         </>
