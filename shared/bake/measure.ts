@@ -193,8 +193,13 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   const nk = K.length;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000;
   // first table region at A
+  // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;
-  while (k + 1 < nk && K[k + 1] <= A) k++;
+  {
+    let lo = 0, hi = nk;
+    while (lo < hi) { const mid = (lo + hi) >> 1; if (K[mid] <= A) lo = mid + 1; else hi = mid; }
+    k = lo - 1;
+  }
   const cuts = src.cuts;
   let c = 0;
   const stopAbove = opts.stopAbove ?? Infinity;

@@ -81,6 +81,8 @@ export function roundTripRange(q: Quantizer, xs: Float64Array, out: Float64Array
 interface Pieces {
   count: number;
   seg: Int32Array;
+  /** The piece ends its segment (it holds times up to S_{i+1}, exclusive). */
+  last: Uint8Array;
   a: Float64Array;
   b: Float64Array;
   /** Piece order by increasing lower / decreasing upper bound, for values (0) and slopes (1). */
@@ -106,7 +108,7 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
   const ns = S.length - 1;
   let count = 0;
   for (let i = 0; i < ns; i++) if (S[i + 1] > S[i]) count += PIECES;
-  const seg = new Int32Array(count), a = new Float64Array(count), b = new Float64Array(count);
+  const seg = new Int32Array(count), last = new Uint8Array(count), a = new Float64Array(count), b = new Float64Array(count);
   const orders = hermite ? 2 : 1;
   const byLo: Int32Array[] = [], byHi: Int32Array[] = [];
   const lo = [new Float64Array(count), new Float64Array(count)], hi = [new Float64Array(count), new Float64Array(count)];
@@ -116,6 +118,7 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
     if (!(s1 > s0)) continue;
     for (let p = 0; p < PIECES; p++) {
       seg[j] = i;
+      last[j] = p === PIECES - 1 ? 1 : 0;
       a[j] = p === 0 ? s0 : s0 + ((s1 - s0) * p) / PIECES;
       b[j] = p === PIECES - 1 ? s1 : s0 + ((s1 - s0) * (p + 1)) / PIECES;
       for (let o = 0; o < orders; o++) bracket(src, i, a[j], b[j], o as 0 | 1, lo[o], hi[o], j);
@@ -130,13 +133,21 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
     (byLo[o] as Int32Array & { bound?: Float64Array }).bound = L;
     (byHi[o] as Int32Array & { bound?: Float64Array }).bound = H;
   }
-  return { count, seg, a, b, byLo, byHi };
+  return { count, seg, last, a, b, byLo, byHi };
+}
+
+/** First index k < n with xs[k] ≥ x (n when none); xs sorted. */
+function lowerBound(xs: Float64Array, n: number, x: number): number {
+  let lo = 0, hi = n;
+  while (lo < hi) { const mid = (lo + hi) >> 1; if (xs[mid] < x) lo = mid + 1; else hi = mid; }
+  return lo;
 }
 
 /** Grow-only scratch buffers (one trial at a time). */
 let cap = 0;
 let T = new Float64Array(0), XV = new Float64Array(0), XM = new Float64Array(0), DV = new Float64Array(0), DM = new Float64Array(0);
-let SEG = new Int32Array(0), PIECE = new Int32Array(0), BRK = new Int32Array(0);
+let SPECIAL = new Int32Array(0);
+let SPECIAL_N = 0;
 let HAVE = new Uint8Array(0);
 let PK0 = new Int32Array(0), PK1 = new Int32Array(0);
 
@@ -144,7 +155,7 @@ function ensure(n: number, pieces: number): void {
   if (n > cap) {
     cap = Math.max(n, 2 * cap, 64);
     T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
-    SEG = new Int32Array(cap); PIECE = new Int32Array(cap); BRK = new Int32Array(cap); HAVE = new Uint8Array(cap);
+    SPECIAL = new Int32Array(cap); HAVE = new Uint8Array(cap);
   }
   if (PK0.length < pieces) { PK0 = new Int32Array(pieces); PK1 = new Int32Array(pieces); }
 }
@@ -191,59 +202,56 @@ export class LazyTrials {
     for (let k = 0; k < n; k++) T[k] = A + k * h;
     T[n - 1] = B;
     HAVE.fill(0, 0, n);
-    // segment and piece of every entry (walks, no evaluation); breaks exactly at an entry (slopes)
     const S0 = S[0], SN = S[ns];
-    {
-      let i = 0, p = 0, b = 0;
-      const br = this.breaks;
-      if (P) for (let q = 0; q < P.count; q++) { PK0[q] = 0; PK1[q] = 0; }
-      for (let k = 0; k < n; k++) {
-        const t = T[k];
-        let seg = -1;
-        if (t >= S0 && t < SN) {
-          while (i + 1 < ns && S[i + 1] <= t) i++;
-          seg = i;
-        }
-        SEG[k] = seg;
-        let piece = -1;
-        if (P && seg >= 0) {
-          // pieces of a segment are contiguous and tile [S_i, S_{i+1}): a_{p+1} is computed as b_p
-          while (p < P.count && P.seg[p] < seg) p++;
-          while (p + 1 < P.count && P.seg[p + 1] === seg && P.b[p] <= t) p++;
-          piece = p;
-          if (PK1[p] === 0) PK0[p] = k;
-          PK1[p] = k + 1;
-        }
-        PIECE[k] = piece;
-        if (this.hermite) {
-          while (b < br.length && br[b].time < t) b++;
-          BRK[k] = b < br.length && br[b].time === t && br[b].right >= 0 ? b : -1;
-        }
-      }
-    }
+    const br = this.breaks;
+    // entries before S₀ are [0, kS0), from S_N on [kSN, n); piece q holds [PK0[q], PK1[q]) (binary searches)
+    const kS0 = lowerBound(T, n, S0), kSN = lowerBound(T, n, SN);
+    if (P) for (let q = 0; q < P.count; q++) { PK0[q] = lowerBound(T, n, P.a[q]); PK1[q] = lowerBound(T, n, P.last[q] ? S[P.seg[q] + 1] : P.b[q]); }
+    // the segment holding T[k]: the largest i < ns with S_i ≤ t (as sourceValue's binary search), −1 outside [S₀, S_N)
+    const segOf = (k: number): number => {
+      const t = T[k];
+      if (!(t >= S0 && t < SN)) return -1;
+      let lo = 0, hi = ns;
+      while (hi - lo > 1) { const mid = (lo + hi) >> 1; if (S[mid] <= t) lo = mid; else hi = mid; }
+      return lo;
+    };
+    // the first break with time ≥ T[k] if it is exactly at T[k] and has a right segment (the walk of uniformData)
+    const brkOf = (k: number): Break | null => {
+      const t = T[k];
+      let lo = 0, hi = br.length;
+      while (lo < hi) { const mid = (lo + hi) >> 1; if (br[mid].time < t) lo = mid + 1; else hi = mid; }
+      return lo < br.length && br[lo].time === t && br[lo].right >= 0 ? br[lo] : null;
+    };
     const vals = (k: number): void => {
       if (HAVE[k] & 1) return;
       HAVE[k] |= 1;
-      XV[k] = entryValue(src, T[k], SEG[k]);
+      XV[k] = entryValue(src, T[k], segOf(k));
     };
     const slps = (k: number): void => {
       if (HAVE[k] & 2) return;
       HAVE[k] |= 2;
-      const b = BRK[k];
-      XM[k] = entrySlope(src, T[k], SEG[k], b >= 0 ? this.breaks[b] : null, k === n - 1, this.lastSegment);
+      XM[k] = entrySlope(src, T[k], segOf(k), brkOf(k), k === n - 1, this.lastSegment);
     };
     let qv: Quantizer, qm: Quantizer | null = null;
     const e = this.profile.encoding;
     if (P) {
-      // entries outside every piece (before S₀, from S_N on) and (slopes) breaks and the last entry first
-      for (let k = 0; k < n; k++) {
-        if (PIECE[k] < 0) { vals(k); if (this.hermite) slps(k); }
-        else if (this.hermite && (BRK[k] >= 0 || k === n - 1)) slps(k);
+      // entries outside every piece (before S₀, from S_N on) and, for slopes, the entries on a break and the
+      // last entry (their slopes are not the segment's own): evaluated first, folded into the extremes
+      SPECIAL_N = 0;
+      for (let k = 0; k < kS0; k++) SPECIAL[SPECIAL_N++] = k;
+      for (let k = kSN; k < n; k++) SPECIAL[SPECIAL_N++] = k;
+      for (let j = 0; j < SPECIAL_N; j++) { vals(SPECIAL[j]); if (this.hermite) slps(SPECIAL[j]); }
+      if (this.hermite) {
+        slps(n - 1);
+        for (let b = 0; b < br.length; b++) {
+          const k = lowerBound(T, n, br[b].time);
+          if (k < n && T[k] === br[b].time) slps(k);
+        }
       }
-      const [vlo, vhi] = this.extremes(0, n, vals, XV, 1);
+      const [vlo, vhi] = this.extremes(0, vals, XV, 1, -1, n);
       qv = makeQuantizer_(e, vlo, vhi);
       if (this.hermite) {
-        const [mlo, mhi] = this.extremes(1, n, slps, XM, 2);
+        const [mlo, mhi] = this.extremes(1, slps, XM, 2, br.length, n);
         qm = makeQuantizer_(e, mlo, mhi);
       }
     } else {
@@ -271,11 +279,21 @@ export class LazyTrials {
     return { e: m.e, fullAt: m.at };
   }
 
-  /** Exact [min, max] over all n entries of values (o = 0) or slopes (o = 1), evaluating only where either can be. */
-  private extremes(o: 0 | 1, n: number, get: (k: number) => void, X: Float64Array, bit: number): [number, number] {
+  /**
+   * Exact [min, max] over all n entries of values (o = 0) or slopes (o = 1), evaluating only where either
+   * can be; the special entries (already evaluated: outside the pieces, and for slopes on breaks and the
+   * last entry) are folded in first.
+   */
+  private extremes(o: 0 | 1, get: (k: number) => void, X: Float64Array, bit: number, breakCount: number, n: number): [number, number] {
     const P = this.pieces!;
     let lo = Infinity, hi = -Infinity;
-    for (let k = 0; k < n; k++) if (HAVE[k] & bit) { const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; }
+    const fold = (k: number): void => { if (HAVE[k] & bit) { const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; } };
+    for (let j = 0; j < SPECIAL_N; j++) fold(SPECIAL[j]);
+    if (o === 1) {
+      fold(n - 1);
+      const br = this.breaks;
+      for (let b = 0; b < breakCount; b++) { const k = lowerBound(T, n, br[b].time); if (k < n && T[k] === br[b].time) fold(k); }
+    }
     const byLo = P.byLo[o] as Int32Array & { bound: Float64Array };
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];
