@@ -9,6 +9,7 @@ import { evaluate, prepareCurve, type CurveDocument } from '../../shared/curve';
 import type { CurveDto } from '../../shared/schemas/packs';
 import type { UploadFileResult } from '../../shared/schemas/uploads';
 import type { TeamEvent } from '../../server/events/team-events';
+import { writeGltf } from '../../shared/convert';
 import { HERO_KEYS, buildFixtureGltf, smoothstep } from '../fixtures/uploads/gltf-fixture';
 
 const PASSWORD = 'uploads password 1';
@@ -131,6 +132,8 @@ describe('bulk upload API: POST /api/teams/:teamId/packs/:pack/uploads', () => {
   it('bad files get their own error beside the good ones, which are stored', async () => {
     const slug = await freshPack();
     const fakeGlb = Buffer.from('definitely not binary glTF, just text in a .glb');
+    // a real GLB from the project's writer (checked against gltf-validator in tests/unit/convert/gltf-write.test.ts)
+    const glb = writeGltf([{ name: 'fade', interpolation: 'LINEAR', times: new Float32Array([0, 0.5]), output: new Float32Array([1, 0]) }]).glb();
     const brokenGltf = buildFixtureGltf().json as { animations: { channels: { sampler: number }[] }[] };
     brokenGltf.animations[0]!.channels[1]!.sampler = 9; // the second channel names a sampler that is not there
     const res = await upload(animator, slug)
@@ -140,11 +143,13 @@ describe('bulk upload API: POST /api/teams/:teamId/packs/:pack/uploads', () => {
       .attach('files', Buffer.from('hello'), 'notes.txt')
       .attach('files', Buffer.from(JSON.stringify(brokenGltf)), 'broken.gltf')
       .attach('files', Buffer.from(JSON.stringify({ ...doc('wrong'), keys: [{ time: 0, value: 'x' }] })), 'wrong-doc.json')
-      .attach('files', Buffer.from(smoothCsv), 'good.csv');
+      .attach('files', Buffer.from([0x30, 0x2c, 0x30, 0x0a, 0x00, 0x31]), 'binary.csv')
+      .attach('files', Buffer.from(smoothCsv), 'good.csv')
+      .attach('files', Buffer.from(glb), 'fade.glb');
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const r = res.body.results as UploadFileResult[];
     expect(r.map((x) => [x.file, x.ok])).toEqual([
-      ['notjson.json', false], ['bad-row.csv', false], ['fake.glb', false], ['notes.txt', false], ['broken.gltf', false], ['wrong-doc.json', false], ['good.csv', true],
+      ['notjson.json', false], ['bad-row.csv', false], ['fake.glb', false], ['notes.txt', false], ['broken.gltf', false], ['wrong-doc.json', false], ['binary.csv', false], ['good.csv', true], ['fade.glb', true],
     ]);
     const bad = r.filter((x): x is Bad => !x.ok);
     expect(bad[0]!.error).toMatch(/^not JSON/);
@@ -153,9 +158,11 @@ describe('bulk upload API: POST /api/teams/:teamId/packs/:pack/uploads', () => {
     expect(bad[3]!.error).toMatch(/"\.txt" files are not accepted/);
     expect(bad[4]!.error).toMatch(/^glTF: animations\[0\]\.channels\[1\]\.sampler: 9 does not exist/);
     expect(bad[5]!.field).toMatch(/^document\.keys\[0\]/);
+    expect(bad[6]!.error).toMatch(/^not a text file/);
     for (const b of bad.slice(0, 5)) expect(b.field).toBe('files');
     // only the good file's curve exists: the broken glTF's first (readable) channel was not stored either
-    expect((await curvesOf(slug)).map((c) => c.name)).toEqual(['good']);
+    expect((await curvesOf(slug)).map((c) => c.name)).toEqual(['good', 'fade-fade-weights-0']);
+    expect(evaluate(prepareCurve((await curvesOf(slug))[1]!.document), 0.25)).toBeCloseTo(0.5, 6); // LINEAR halfway
   });
 
   it('a name already in the pack gets the next numbered name', async () => {

@@ -73,7 +73,7 @@ export function BulkUploadPanel({ teamId, slug }: { teamId: string; slug: string
           className={`rounded border-2 border-dashed px-4 py-5 text-center text-sm ${over ? 'border-vermilion bg-paper dark:bg-night' : 'border-grid-major dark:border-night-line'}`}
         >
           <p>Drop files here, or</p>
-          <label className={`${secondaryButton} mt-2 inline-block cursor-pointer`}>
+          <label className={`${secondaryButton} mt-2 inline-block cursor-pointer focus-within:outline focus-within:outline-2 focus-within:outline-vermilion`}>
             choose files
             <input type="file" multiple accept={UPLOAD_EXTENSIONS.join(',')} aria-label="Curve files" className="sr-only" disabled={busy}
               onChange={(e) => choose(e.target.files)} />
