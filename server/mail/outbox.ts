@@ -6,7 +6,8 @@
  * at most 10 minutes apart, for MAX_ATTEMPTS attempts (about two days). Claims use
  * UPDATE … WHERE id IN (SELECT … FOR UPDATE SKIP LOCKED) and push `next_attempt_at` past the send timeout,
  * so two instances never send one row at the same moment and a process that dies mid-send leaves the
- * row to be retried (at-least-once delivery, common practice for an outbox).
+ * row to be retried (at-least-once delivery, common practice for an outbox). A pending row keeps the
+ * whole message (links included, so it can still be sent); a sent row keeps only recipient and subject.
  */
 import { QueryTypes } from 'sequelize';
 import type { AppContext } from '../context';
@@ -65,7 +66,9 @@ export async function deliverDue(ctx: AppContext, onlyId?: string): Promise<numb
   for (const row of claimed) {
     try {
       await ctx.mail.sendMail({ from: row.from_address, to: row.to_address, subject: row.subject, text: row.text_body, ...(row.html_body ? { html: row.html_body } : {}) });
-      await ctx.sequelize.query('UPDATE mail_outbox SET sent_at = now(), last_error = NULL, updated_at = now() WHERE id = :id', { replacements: { id: row.id } });
+      // once delivered, the body is dropped: it may hold a reset or invitation link, which is stored
+      // nowhere else in plain text (only its SHA-256); recipient and subject stay for the record
+      await ctx.sequelize.query("UPDATE mail_outbox SET sent_at = now(), last_error = NULL, text_body = '', html_body = NULL, updated_at = now() WHERE id = :id", { replacements: { id: row.id } });
       sent++;
     } catch (err) {
       const message = (err as Error).message;
