@@ -15,6 +15,12 @@ import { packRoutes } from './packs/packs.routes';
 import { versionRoutes } from './versions/versions.routes';
 import { channelRoutes } from './channels/channels.routes';
 import { inboxRoutes } from './inbox/inbox.routes';
+import { webhookRoutes } from './webhooks/webhooks.routes';
+import { activityRoutes } from './activity/activity.routes';
+import { commentRoutes } from './comments/comments.routes';
+import { notificationRoutes } from './notifications/notifications.routes';
+import { apiV1Routes } from './api-v1/api-v1.routes';
+import { uploadRoutes } from './uploads/uploads.routes';
 
 /**
  * Every API resource under /api, one line each. The 404 for unknown API paths comes last.
@@ -26,6 +32,7 @@ export function apiRouter(ctx: AppContext): Router {
   const api = Router();
   api.use(originCheck(ctx.config));
   api.use(authenticate(ctx));
+  api.use(apiV1Routes(ctx));
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));
   api.use(teamRoutes(ctx));
@@ -38,6 +45,11 @@ export function apiRouter(ctx: AppContext): Router {
   api.use(versionRoutes(ctx));
   api.use(channelRoutes(ctx));
   api.use(inboxRoutes(ctx));
+  api.use(webhookRoutes(ctx));
+  api.use(activityRoutes(ctx));
+  api.use(commentRoutes(ctx));
+  api.use(notificationRoutes(ctx));
+  api.use(uploadRoutes(ctx));
   api.use(notFoundApi);
   return api;
 }

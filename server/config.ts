@@ -3,6 +3,7 @@
  * A bad value stops start-up with a message naming the variable.
  */
 import { z } from 'zod';
+import { DEFAULT_RETRY_SCHEDULE_SECONDS, parseRetrySchedule } from './webhooks/backoff';
 
 const port = z.coerce.number().int().min(1, 'must be a port number 1–65535').max(65535, 'must be a port number 1–65535');
 const bool = z
@@ -48,6 +49,12 @@ export const envSchema = z.object({
   /** How long a presigned download URL stays valid. */
   TANGENTRY_DOWNLOAD_REDIRECT_SECONDS: z.coerce.number().int().min(1, 'must be at least 1 second').max(3600, 'at most 3600 seconds').default(60),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Webhooks (server/webhooks): how often the dispatcher looks for due deliveries, the waits between attempts, one attempt's timeout. */
+  WEBHOOK_POLL_MS: z.coerce.number().int().min(50, 'must be 50–600000 ms').max(600_000, 'must be 50–600000 ms').default(2000),
+  WEBHOOK_RETRY_SCHEDULE: z.string().refine((v) => parseRetrySchedule(v) !== null, 'must be a comma-separated list of 1–20 positive waits in seconds, such as 10,60,300').optional(),
+  WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100, 'must be 100–60000 ms').max(60_000, 'must be 100–60000 ms').default(10_000),
+  /** Allow webhook URLs with http:// and loopback/private addresses (tests, a studio-internal receiver). Off: https:// to public addresses only. */
+  WEBHOOK_ALLOW_PRIVATE_TARGETS: bool.default(false),
   /** Background bakes (server/jobs): `inline` runs a bake worker inside the API process, `off` leaves bakes to `npm run worker`. */
   TANGENTRY_WORKER: z.enum(['inline', 'off'], { message: 'must be inline or off' }).default('inline'),
   /** Retries of a failed bake job before the bake is marked failed, the delay before the first (doubling with pg-boss backoff), and how long one attempt may run. */
@@ -81,6 +88,8 @@ export interface Config {
   /** /api/v1: rate limit per token/person/address, and whether downloads redirect to presigned S3 URLs. */
   apiV1: { rateLimit: { max: number; windowMs: number }; downloadRedirect: 'off' | 'presigned'; presignSeconds: number };
   logLevel: Env['LOG_LEVEL'];
+  /** Webhook deliveries (server/webhooks): poll interval, retry waits in seconds, attempt timeout, whether http:// and private addresses are allowed. */
+  webhooks: { pollMs: number; retryScheduleSeconds: number[]; timeoutMs: number; allowPrivateTargets: boolean };
   /** Background bakes with pg-boss (server/jobs). */
   jobs: { worker: Env['TANGENTRY_WORKER']; retryLimit: number; retryDelaySeconds: number; expireSeconds: number; pollSeconds: number; maintenanceSeconds: number; bakeDelayMs: number };
 }
@@ -134,6 +143,12 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       presignSeconds: e.TANGENTRY_DOWNLOAD_REDIRECT_SECONDS,
     },
     logLevel: e.LOG_LEVEL,
+    webhooks: {
+      pollMs: e.WEBHOOK_POLL_MS,
+      retryScheduleSeconds: e.WEBHOOK_RETRY_SCHEDULE ? parseRetrySchedule(e.WEBHOOK_RETRY_SCHEDULE)! : [...DEFAULT_RETRY_SCHEDULE_SECONDS],
+      timeoutMs: e.WEBHOOK_TIMEOUT_MS,
+      allowPrivateTargets: e.WEBHOOK_ALLOW_PRIVATE_TARGETS,
+    },
     jobs: {
       worker: e.TANGENTRY_WORKER,
       retryLimit: e.TANGENTRY_BAKE_RETRY_LIMIT,

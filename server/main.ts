@@ -13,6 +13,7 @@ import { seedDemoIfEmpty } from './seed/demo';
 import { createApp } from './app';
 import { ensureBucket } from './storage/s3-client';
 import { startJobs, stopJobs } from './jobs/boss';
+import { createWebhookDispatcher } from './webhooks/dispatcher';
 
 export interface RunningServer {
   ctx: AppContext;
@@ -39,6 +40,7 @@ export async function startServer(
     server.once('error', reject);
     server.listen(config.port, config.host, () => resolve());
   });
+  const webhooks = createWebhookDispatcher(ctx); // delivers webhooks from this process (server/webhooks/dispatcher.ts)
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.port;
   return {
@@ -50,6 +52,7 @@ export async function startServer(
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeIdleConnections();
       setTimeout(() => server.closeAllConnections(), 2_000).unref();
+      await webhooks.stop();
       await closed;
       await stopJobs(ctx).catch((err) => ctx.logger.warn({ err: (err as Error).message }, 'pg-boss did not stop cleanly'));
       await closeContext(ctx);

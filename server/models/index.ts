@@ -17,11 +17,20 @@ import { PackVersion, initPackVersion } from './pack-version';
 import { VersionArtifact, initVersionArtifact } from './version-artifact';
 import { VersionReview, initVersionReview } from './version-review';
 import { Channel, ChannelMove, initChannels } from './channel';
+import { Webhook, initWebhook } from './webhook';
+import { WebhookDelivery, initWebhookDelivery } from './webhook-delivery';
+import { VersionBake, initVersionBake } from './version-bake';
+import { Activity, initActivity } from './activity';
+import { VersionComment, initVersionComment } from './version-comment';
+import { Notification, initNotification } from './notification';
 
 export { Studio, Team };
 export { User, Membership, Invitation, PasswordReset, ServiceToken };
 export { TargetProfile };
 export { Pack, Curve, PackVersion, VersionArtifact, VersionReview, Channel, ChannelMove };
+export { Webhook, WebhookDelivery };
+export { VersionBake };
+export { Activity, VersionComment, Notification };
 
 export function initModels(sequelize: Sequelize): void {
   initStudio(sequelize);
@@ -61,4 +70,11 @@ export function initModels(sequelize: Sequelize): void {
   VersionReview.belongsTo(PackVersion, { foreignKey: 'versionId', as: 'version' });
   initChannels(sequelize);
   Channel.belongsTo(Pack, { foreignKey: 'packId', as: 'pack' });
+  initWebhook(sequelize); // webhooks (issue 8 part 4)
+  initWebhookDelivery(sequelize);
+  WebhookDelivery.belongsTo(Webhook, { foreignKey: 'webhookId', as: 'webhook' });
+  initVersionBake(sequelize); // background bakes (issue 7 part 2)
+  initActivity(sequelize); // activity, comments and notices (issue 7 parts 3 and 5)
+  initVersionComment(sequelize);
+  initNotification(sequelize);
 }

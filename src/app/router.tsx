@@ -10,12 +10,16 @@ import { ResetPasswordPage } from '../pages/reset-password-page';
 import { ProfilePage } from '../pages/profile-page';
 import { TeamPage } from '../pages/team-page';
 import { TokensPage } from '../pages/tokens-page';
+import { WebhooksPage } from '../pages/webhooks-page';
 import { ProfilesPage } from '../pages/profiles-page';
 import { OutboxPage } from '../pages/outbox-page';
 import { PacksPage } from '../pages/packs-page';
 import { PackPage } from '../pages/pack-page';
 import { VersionPage } from '../pages/version-page';
 import { CurvePage } from '../pages/curve-page';
+import { ApiReferencePage } from '../pages/api-reference-page';
+import { ActivityPage } from '../pages/activity-page';
+import { NoticesPage } from '../pages/notices-page';
 import { RootErrorBoundary, RouteErrorBoundary } from './error-boundary';
 import { AppLayout } from './layout/app-layout';
 
@@ -39,13 +43,17 @@ export const routes: RouteObject[] = [
           { path: 'profile', element: <ProfilePage /> },
           { path: 'team', element: <TeamPage /> },
           { path: 'team/tokens', element: <TokensPage /> },
+          { path: 'team/webhooks', element: <WebhooksPage /> },
           { path: 'team/profiles', element: <ProfilesPage /> },
           { path: 'outbox', element: <OutboxPage /> },
+          { path: 'team/activity', element: <ActivityPage /> },
+          { path: 'notices', element: <NoticesPage /> },
           { path: 'packs', element: <PacksPage /> },
           { path: 'packs/:pack', element: <PackPage /> },
           { path: 'packs/:pack/versions/:number', element: <VersionPage /> },
           { path: 'packs/:pack/curves/:curve', element: <CurvePage /> },
           { path: 'editor', element: <EditorPage /> },
+          { path: 'api-reference', element: <ApiReferencePage /> },
           { path: '*', element: <NotFoundPage /> },
         ],
       },

@@ -6,8 +6,11 @@ export function TeamNav({ role }: { role: Role }) {
   const items = [
     { to: '/team', label: 'Members', show: true },
     { to: '/team/profiles', label: 'Target profiles', show: true },
+    { to: '/team/activity', label: 'Activity', show: true },
     { to: '/team/tokens', label: 'Service tokens', show: roleCan(role, 'tokens.manage') },
+    { to: '/team/webhooks', label: 'Webhooks', show: roleCan(role, 'webhooks.manage') },
     { to: '/outbox', label: 'Outbox', show: roleCan(role, 'outbox.read') },
+    { to: '/api-reference', label: 'Build-server API', show: true },
   ].filter((i) => i.show);
   return (
     <nav aria-label="Team" className="mt-4 flex gap-1 border-b border-grid-major dark:border-night-line">

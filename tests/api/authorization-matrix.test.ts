@@ -26,6 +26,11 @@ import { createProfile } from '../../server/profiles/profiles.service';
 import { createCurve, createPack } from '../../server/packs/packs.service';
 import { DEMO_PACKS } from '../../server/seed/demo-packs';
 import { proposeVersion, review, type Storage } from '../../server/versions/versions.service';
+import { release } from '../../server/channels/channels.service';
+import { insertDeliveries, insertWebhook } from '../../server/webhooks/webhooks.repository';
+import { snapshotProposal } from '../../server/versions/bakes.service';
+import { recordFailure } from '../../server/versions/bakes.repository';
+import '../support/bakes'; // stops the pg-boss that proposing and retrying start
 
 const matrixProfile = () => ({ tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
 
@@ -45,6 +50,26 @@ async function matrixVersion(e: Env, count = 1) {
   let v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
   for (let i = 1; i < count; i++) v = await proposeVersion(e.storage, someone, e.team, p.slug, 'matrix version', e.adminId);
   return { url: `${p.url}/versions/${v.number}`, artifactId: v.artifacts[1]!.id };
+}
+
+/** A fresh pack with one recorded proposal (not queued); `failed` marks its bake failed, as after a storage outage. */
+async function matrixBake(e: Env, failed = false) {
+  const p = await matrixPack(e.team);
+  const b = await snapshotProposal(e.storage, someone, e.team, p.slug, 'matrix bake', e.adminId);
+  if (failed) await recordFailure(b.id, { target: 'Console', curve: null, reason: 'matrix: storage down' }, true);
+  return { url: `${p.url}/bakes`, id: b.id };
+}
+
+/** A webhook of UI Motion to act on (each caller gets its own). */
+const matrixWebhook = (e: Env) => insertWebhook({ teamId: e.team, url: 'https://builds.corvid-lantern.test/hooks', description: '', events: ['channel.moved'], secret: 'whsec_matrix', createdBy: e.adminId });
+
+/** The /api/v1 URL of a fresh approved v1 released on `shipping` (build-server API, issue 8). */
+async function matrixV1(e: Env) {
+  const v = await matrixVersion(e);
+  const slug = v.url.split('/packs/')[1]!.split('/')[0]!;
+  await review(someone, e.team, slug, 1, e.adminId, { decision: 'approve', comment: '' });
+  await release(someone, e.team, slug, 'shipping', 1, e.adminId);
+  return { version: v.url.replace(/^\/api\//, '/api/v1/'), channel: `/api/v1/teams/${e.team}/packs/${slug}/channels/shipping` };
 }
 
 const WHO = ['anonymous', ...ROLES, 'revokedToken', 'validToken', 'otherTeam'] as const;
@@ -103,6 +128,14 @@ const MATRIX: Entry[] = [
   { route: 'GET /api/teams', build: () => ({ url: '/api/teams' }), expect: person(200) },
   // the home page's inbox (issue 7): any signed-in person sees only what is in their own teams
   { route: 'GET /api/me/inbox', build: () => ({ url: '/api/me/inbox' }), expect: person(200) },
+  // in-app notices (issue 7 part 3): only one's own, any signed-in person, never a token
+  { route: 'GET /api/me/notifications', build: () => ({ url: '/api/me/notifications' }), expect: person(200) },
+  { route: 'POST /api/me/notifications/read', build: () => ({ url: '/api/me/notifications/read', body: { all: true } }), expect: person(200) },
+  // team activity (issue 7 part 5): every member who is a person reads it; tokens do not
+  { route: 'GET /api/teams/:teamId/activity', build: (e) => ({ url: `/api/teams/${e.team}/activity` }), expect: forRoles(200, ROLES) },
+  // comments on a version (issue 7 part 3): every member who is a person reads and writes (leads review, animators answer)
+  { route: 'GET /api/teams/:teamId/packs/:pack/versions/:number/comments', build: async (e) => ({ url: `${(await matrixVersion(e)).url}/comments` }), expect: forRoles(200, ROLES) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/versions/:number/comments', build: async (e) => ({ url: `${(await matrixVersion(e)).url}/comments`, body: { body: 'matrix comment' } }), expect: forRoles(201, ROLES) },
   { route: 'GET /api/teams/:teamId', build: (e) => ({ url: `/api/teams/${e.team}` }), expect: forRoles(200, ROLES, { token: 200 }) },
   { route: 'GET /api/teams/:teamId/members', build: (e) => ({ url: `/api/teams/${e.team}/members` }), expect: forRoles(200, ROLES) },
   {
@@ -127,6 +160,19 @@ const MATRIX: Entry[] = [
     route: 'DELETE /api/teams/:teamId/tokens/:tokenId',
     build: async (e) => ({ url: `/api/teams/${e.team}/tokens/${(await createToken(e.team, { name: 'to revoke' }, e.adminId)).token.id}` }),
     expect: adminOnly(204),
+  },
+  // webhooks (issue 8 part 4): admins only (webhooks.manage), never service tokens, not even to read
+  { route: 'GET /api/teams/:teamId/webhooks', build: (e) => ({ url: `/api/teams/${e.team}/webhooks` }), expect: adminOnly(200) },
+  { route: 'POST /api/teams/:teamId/webhooks', build: (e) => ({ url: `/api/teams/${e.team}/webhooks`, body: { url: 'https://builds.corvid-lantern.test/hooks', events: ['channel.moved'] } }), expect: adminOnly(201) },
+  { route: 'PATCH /api/teams/:teamId/webhooks/:webhookId', build: async (e) => ({ url: `/api/teams/${e.team}/webhooks/${(await matrixWebhook(e)).id}`, body: { description: 'renamed' } }), expect: adminOnly(200) },
+  { route: 'DELETE /api/teams/:teamId/webhooks/:webhookId', build: async (e) => ({ url: `/api/teams/${e.team}/webhooks/${(await matrixWebhook(e)).id}` }), expect: adminOnly(204) },
+  { route: 'POST /api/teams/:teamId/webhooks/:webhookId/rotate-secret', build: async (e) => ({ url: `/api/teams/${e.team}/webhooks/${(await matrixWebhook(e)).id}/rotate-secret` }), expect: adminOnly(200) },
+  { route: 'POST /api/teams/:teamId/webhooks/:webhookId/ping', build: async (e) => ({ url: `/api/teams/${e.team}/webhooks/${(await matrixWebhook(e)).id}/ping` }), expect: adminOnly(202) },
+  { route: 'GET /api/teams/:teamId/webhooks/:webhookId/deliveries', build: async (e) => ({ url: `/api/teams/${e.team}/webhooks/${(await matrixWebhook(e)).id}/deliveries` }), expect: adminOnly(200) },
+  {
+    route: 'POST /api/teams/:teamId/webhooks/:webhookId/deliveries/:deliveryId/redeliver',
+    build: async (e) => { const w = await matrixWebhook(e); const [d] = await insertDeliveries([{ webhookId: w.id, eventType: 'ping', eventId: crypto.randomUUID(), payload: '{}' }]); return { url: `/api/teams/${e.team}/webhooks/${w.id}/deliveries/${d!.id}/redeliver` }; },
+    expect: adminOnly(202),
   },
   // public formats
   { route: 'GET /api/schemas/curve.schema.json', build: () => ({ url: '/api/schemas/curve.schema.json' }), expect: everyone(200) },
@@ -157,6 +203,8 @@ const MATRIX: Entry[] = [
   { route: 'PATCH /api/teams/:teamId/packs/:pack', build: async (e) => ({ url: (await matrixPack(e.team, 0)).url, body: { name: 'Renamed', archived: true } }), expect: forRoles(200, EDITORS) },
   { route: 'GET /api/teams/:teamId/packs/:pack/curves', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions/curves` }), expect: forRoles(200, ROLES, { token: 200 }) },
   { route: 'POST /api/teams/:teamId/packs/:pack/curves', build: async (e) => ({ url: `${(await matrixPack(e.team, 0)).url}/curves`, body: { document: matrixDoc('new-one') } }), expect: forRoles(201, EDITORS) },
+  // bulk upload (issue 7): a JSON body holds no files, so 400 proves the guard let an editor through (tests/api/uploads.test.ts sends files)
+  { route: 'POST /api/teams/:teamId/packs/:pack/uploads', build: async (e) => ({ url: `${(await matrixPack(e.team, 0)).url}/uploads`, body: {} }), expect: forRoles(400, EDITORS) },
   {
     route: 'POST /api/teams/:teamId/packs/:pack/reorder',
     build: async (e) => { const p = await matrixPack(e.team, 2); return { url: `${p.url}/reorder`, body: { curveIds: [...p.ids].reverse() } }; },
@@ -181,7 +229,11 @@ const MATRIX: Entry[] = [
   },
   // pack versions (issue 7): members and tokens read and download; versions.propose (admin, lead, animator) proposes
   { route: 'GET /api/teams/:teamId/packs/:pack/versions', build: (e) => ({ url: `/api/teams/${e.team}/packs/menu-transitions/versions` }), expect: forRoles(200, ROLES, { token: 200 }) },
-  { route: 'POST /api/teams/:teamId/packs/:pack/versions', build: async (e) => ({ url: `${(await matrixPack(e.team)).url}/versions`, body: { changelog: 'matrix proposal' } }), expect: forRoles(201, ['admin', 'lead', 'animator']) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/versions', build: async (e) => ({ url: `${(await matrixPack(e.team)).url}/versions`, body: { changelog: 'matrix proposal' } }), expect: forRoles(202, ['admin', 'lead', 'animator']) },
+  // background bakes (issue 7 part 2): members and tokens follow them; versions.propose retries a failed one
+  { route: 'GET /api/teams/:teamId/packs/:pack/bakes', build: async (e) => ({ url: (await matrixBake(e)).url }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/teams/:teamId/packs/:pack/bakes/:bakeId', build: async (e) => { const b = await matrixBake(e); return { url: `${b.url}/${b.id}` }; }, expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'POST /api/teams/:teamId/packs/:pack/bakes/:bakeId/retry', build: async (e) => { const b = await matrixBake(e, true); return { url: `${b.url}/${b.id}/retry` }; }, expect: forRoles(202, ['admin', 'lead', 'animator']) },
   { route: 'GET /api/teams/:teamId/packs/:pack/versions/:number', build: async (e) => ({ url: (await matrixVersion(e)).url }), expect: forRoles(200, ROLES, { token: 200 }) },
   {
     route: 'GET /api/teams/:teamId/packs/:pack/versions/:number/artifacts/:artifactId',
@@ -202,6 +254,14 @@ const MATRIX: Entry[] = [
     },
     expect: forRoles(200, ['admin', 'lead']),
   },
+  // build-server API v1 (issue 8): the document is public; whoami for any token or person; members and tokens read and download
+  { route: 'GET /api/v1/openapi.json', build: () => ({ url: '/api/v1/openapi.json' }), expect: everyone(200) },
+  { route: 'GET /api/v1/whoami', build: () => ({ url: '/api/v1/whoami' }), expect: { ...person(200), validToken: 200 } },
+  { route: 'GET /api/v1/teams/:teamId/packs', build: (e) => ({ url: `/api/v1/teams/${e.team}/packs` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/v1/teams/:teamId/packs/:pack/channels/:channel', build: async (e) => ({ url: (await matrixV1(e)).channel }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/v1/teams/:teamId/packs/:pack/versions/:number', build: async (e) => ({ url: (await matrixV1(e)).version }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/v1/teams/:teamId/packs/:pack/versions/:number/source', build: async (e) => ({ url: `${(await matrixV1(e)).version}/source` }), expect: forRoles(200, ROLES, { token: 200 }) },
+  { route: 'GET /api/v1/teams/:teamId/packs/:pack/versions/:number/artifacts/:target/:format', build: async (e) => ({ url: `${(await matrixV1(e)).version}/artifacts/console/binary` }), expect: forRoles(200, ROLES, { token: 200 }) },
   // admins of any team read the outbox: otherTeam is an admin of Gameplay Feel
   { route: 'GET /api/outbox', build: () => ({ url: '/api/outbox' }), expect: { ...forRoles(200, ['admin']), otherTeam: 200 } },
 ];

@@ -6,6 +6,10 @@ import * as m0004 from './0004-packs-and-curves';
 import * as m0005 from './0005-pack-versions';
 import * as m0006 from './0006-version-reviews';
 import * as m0007 from './0007-channels';
+import * as m0008 from './0008-webhooks';
+import * as m0009 from './0009-background-bakes';
+import * as m0010 from './0010-activity-and-comments';
+import * as m0011 from './0011-mail-outbox';
 
 export interface Migration {
   name: string;
@@ -22,4 +26,8 @@ export const migrations: Migration[] = [
   { name: '0005-pack-versions', ...m0005 },
   { name: '0006-version-reviews', ...m0006 },
   { name: '0007-channels', ...m0007 },
+  { name: '0008-webhooks', ...m0008 },
+  { name: '0009-background-bakes', ...m0009 },
+  { name: '0010-activity-and-comments', ...m0010 },
+  { name: '0011-mail-outbox', ...m0011 },
 ];
