@@ -14,7 +14,7 @@ function toDto(row: Webhook, last: WebhookDelivery | null): WebhookDto {
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
     secretRotatedAt: row.secretRotatedAt ? row.secretRotatedAt.toISOString() : null,
-    lastDelivery: last ? { state: last.state, statusCode: last.lastStatusCode, at: (last.deliveredAt ?? last.updatedAt).toISOString() } : null,
+    lastDelivery: last ? { state: last.state, attempts: last.attempts, statusCode: last.lastStatusCode, at: (last.deliveredAt ?? last.updatedAt).toISOString() } : null,
   };
 }
 

@@ -68,7 +68,7 @@ export interface WebhookDto {
   updatedAt: string;
   secretRotatedAt: string | null;
   /** The newest delivery's state, for the table (null: nothing sent yet). */
-  lastDelivery: { state: DeliveryState; statusCode: number | null; at: string } | null;
+  lastDelivery: { state: DeliveryState; attempts: number; statusCode: number | null; at: string } | null;
 }
 
 export interface DeliveryAttemptDto {

@@ -68,7 +68,7 @@ export function WebhooksPanel({ teamId }: { teamId: string }) {
                   <td className="py-2 pr-3 text-xs">
                     {w.lastDelivery ? (
                       <span className="inline-flex flex-col gap-0.5">
-                        <DeliveryState d={{ state: w.lastDelivery.state, attempts: 1 }} />
+                        <DeliveryState d={w.lastDelivery} />
                         <span className="font-mono">{w.lastDelivery.statusCode ?? '—'} · {when(w.lastDelivery.at)}</span>
                       </span>
                     ) : (
