@@ -6,7 +6,7 @@ const SHOTS = process.env.E2E_SCREENSHOT_DIR ?? '.tmp';
 
 test('an engineer opens the API reference: curl examples carry their own team id and the token placeholder', async ({ page, context }) => {
   await context.grantPermissions(['clipboard-read', 'clipboard-write']);
-  await signInToUiMotion(page, 'engineer@corvid-lantern.test', 'engineer');
+  await signInToUiMotion(page, 'engineer@corvid-lantern.test', 'Engineer');
   await page.getByRole('navigation', { name: 'Team' }).getByRole('link', { name: 'Build-server API' }).click();
   await expect(page).toHaveURL(/\/api-reference$/);
   await expect(page.getByRole('heading', { name: 'UI Motion: build-server API' })).toBeVisible();
