@@ -246,7 +246,8 @@ describe('bad input on every write route', () => {
         fc.asyncProperty(fc.constantFrom(...params), junkParam, junkQuery, async (param, value, query) => {
           const res = await send(route, `${urlOf(route, { [param]: value })}${query ? `?${query}` : ''}`, undefined);
           expect(res.status, `${route} ${param}=${JSON.stringify(value.slice(0, 60))} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`).toBeLessThan(500);
-          if (res.status >= 400) expect(typeof res.body?.error?.message).toBe('string');
+          // /api/v1 answers RFC 9457 problem details ({ type, title, status, detail }); the rest { error: { code, message } }
+          if (res.status >= 400) expect(typeof (res.body?.error?.message ?? res.body?.detail ?? res.body?.title), `${route} ${param}=${JSON.stringify(value.slice(0, 60))} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`).toBe('string');
         }),
         { seed: SEED, numRuns: 10 },
       );
