@@ -61,6 +61,13 @@ export interface MeasureOptions {
   /** Also compare the end value when the range reaches the domain's end (default true). */
   includeEnd?: boolean;
   /**
+   * Optional: the exact source values at the table's entries, knotValues[k] = src.value(knotSegments[k],
+   * times[k], 0) (knotSegments[k] = −2 where unknown). A sample that falls exactly on an entry's time in that
+   * same segment reads the stored number instead of evaluating the source again (the same double).
+   */
+  knotValues?: Float64Array;
+  knotSegments?: Int32Array;
+  /**
    * Stop as soon as `certified` exceeds this value (a search that only asks "within tolerance?" needs no
    * more): the returned figures then cover the pieces measured so far, so `certified` is still above
    * `stopAbove` and `maxError` is still an error that really occurs. Default: measure everything.
@@ -107,9 +114,16 @@ function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
   record(e, x0 + MAX_SLOT[1], e);
 }
 
+/**
+ * Known source values at the current table region's two entries (MeasureOptions.knotValues): time, segment
+ * the value was taken from (−2: none) and the value src.value(segment, time, 0) itself.
+ */
+let hT0 = Number.NaN, hS0 = -2, hV0 = 0, hT1 = Number.NaN, hS1 = -2, hV1 = 0;
+
 /** |f − p| at t (TAB holds the table cubic about `origin`). */
 function gAt(src: BakeSource, i: number, t: number, origin: number): number {
-  return Math.abs(src.value(i, t, 0) - cubicAt_(TAB, t - origin));
+  const f = t === hT0 && i === hS0 ? hV0 : t === hT1 && i === hS1 ? hV1 : src.value(i, t, 0);
+  return Math.abs(f - cubicAt_(TAB, t - origin));
 }
 
 /** max |p''| and max |p'| of the table cubic on [x0, x1] (linear in u for p''; p' bounded by |c1| + 2|c2|u + 3|c3|u²). */
@@ -203,6 +217,9 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   const cuts = src.cuts;
   let c = 0;
   const stopAbove = opts.stopAbove ?? Infinity;
+  const KV = opts.knotValues && opts.knotSegments ? opts.knotValues : null;
+  const KS = opts.knotSegments;
+  hT0 = hT1 = Number.NaN; hS0 = hS1 = -2;
   pieces: for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
     if (!(b > a)) continue;
@@ -220,6 +237,10 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
       }
       if (x1 > x0 && nextUpF32_(x0) < x1) {
         tableCoeffs(tab, k, x0);
+        if (KV && k >= 0 && k + 1 < nk) {
+          hT0 = K[k]; hS0 = KS![k]; hV0 = KV[k];
+          hT1 = K[k + 1]; hS1 = KS![k + 1]; hV1 = KV[k + 1];
+        } else { hT0 = hT1 = Number.NaN; }
         if (exact) exactPiece(src, i, x0, x1);
         else sampledPiece(src, i, x0, x1, x0, estimate ? tolAbs : slackAbs, maxSamples, estimate, 0);
         if (certified > stopAbove) break pieces;

@@ -81,8 +81,6 @@ export function roundTripRange(q: Quantizer, xs: Float64Array, out: Float64Array
 interface Pieces {
   count: number;
   seg: Int32Array;
-  /** The piece ends its segment (it holds times up to S_{i+1}, exclusive). */
-  last: Uint8Array;
   a: Float64Array;
   b: Float64Array;
   /** Piece order by increasing lower / decreasing upper bound, for values (0) and slopes (1). */
@@ -108,7 +106,7 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
   const ns = S.length - 1;
   let count = 0;
   for (let i = 0; i < ns; i++) if (S[i + 1] > S[i]) count += PIECES;
-  const seg = new Int32Array(count), last = new Uint8Array(count), a = new Float64Array(count), b = new Float64Array(count);
+  const seg = new Int32Array(count), a = new Float64Array(count), b = new Float64Array(count);
   const orders = hermite ? 2 : 1;
   const byLo: Int32Array[] = [], byHi: Int32Array[] = [];
   const lo = [new Float64Array(count), new Float64Array(count)], hi = [new Float64Array(count), new Float64Array(count)];
@@ -118,7 +116,6 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
     if (!(s1 > s0)) continue;
     for (let p = 0; p < PIECES; p++) {
       seg[j] = i;
-      last[j] = p === PIECES - 1 ? 1 : 0;
       a[j] = p === 0 ? s0 : s0 + ((s1 - s0) * p) / PIECES;
       b[j] = p === PIECES - 1 ? s1 : s0 + ((s1 - s0) * (p + 1)) / PIECES;
       for (let o = 0; o < orders; o++) bracket(src, i, a[j], b[j], o as 0 | 1, lo[o], hi[o], j);
@@ -133,7 +130,7 @@ function makePieces(src: BakeSource, hermite: boolean): Pieces {
     (byLo[o] as Int32Array & { bound?: Float64Array }).bound = L;
     (byHi[o] as Int32Array & { bound?: Float64Array }).bound = H;
   }
-  return { count, seg, last, a, b, byLo, byHi };
+  return { count, seg, a, b, byLo, byHi };
 }
 
 /** First index k < n with xs[k] ≥ x (n when none); xs sorted. */
@@ -146,18 +143,16 @@ function lowerBound(xs: Float64Array, n: number, x: number): number {
 /** Grow-only scratch buffers (one trial at a time). */
 let cap = 0;
 let T = new Float64Array(0), XV = new Float64Array(0), XM = new Float64Array(0), DV = new Float64Array(0), DM = new Float64Array(0);
-let SPECIAL = new Int32Array(0);
+let SPECIAL = new Int32Array(0), SG = new Int32Array(0);
 let SPECIAL_N = 0;
 let HAVE = new Uint8Array(0);
-let PK0 = new Int32Array(0), PK1 = new Int32Array(0);
 
-function ensure(n: number, pieces: number): void {
+function ensure(n: number): void {
   if (n > cap) {
     cap = Math.max(n, 2 * cap, 64);
     T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
-    SPECIAL = new Int32Array(cap); HAVE = new Uint8Array(cap);
+    SPECIAL = new Int32Array(cap); SG = new Int32Array(cap); HAVE = new Uint8Array(cap);
   }
-  if (PK0.length < pieces) { PK0 = new Int32Array(pieces); PK1 = new Int32Array(pieces); }
 }
 
 export interface TrialOutcome {
@@ -187,26 +182,29 @@ export class LazyTrials {
   }
 
   /**
-   * Run one trial of n entries: `window(view)` first (view valid on the window's entries [wa, wb]); when it
-   * returns a figure above `tol` that is the outcome, else the whole table is filled and `full(view)` runs.
+   * Run one trial of n entries: `window(view, …)` first (view valid on the window's entries [wa, wb]); when it
+   * returns a figure above `tol` that is the outcome, else the whole table is filled and `full(view, …)` runs.
+   * Both also get the exact entry values with their segments (−2 where not evaluated) for
+   * MeasureOptions.knotValues.
    */
   run(
     n: number, wa: number, wb: number, hasWindow: boolean, tol: number,
-    window: (v: TrialView) => number, full: (v: TrialView) => { e: number; at: number },
+    window: (v: TrialView, knotValues: Float64Array, knotSegments: Int32Array) => number,
+    full: (v: TrialView, knotValues: Float64Array, knotSegments: Int32Array) => { e: number; at: number },
   ): TrialOutcome {
     const src = this.src, S = src.times, ns = S.length - 1;
     const P = this.pieces;
-    ensure(n, P ? P.count : 0);
+    ensure(n);
     const A = Math.fround(S[0]), B = Math.fround(S[ns]);
     const h = (B - A) / (n - 1);
     for (let k = 0; k < n; k++) T[k] = A + k * h;
     T[n - 1] = B;
     HAVE.fill(0, 0, n);
+    SG.fill(-2, 0, n);
     const S0 = S[0], SN = S[ns];
     const br = this.breaks;
-    // entries before S₀ are [0, kS0), from S_N on [kSN, n); piece q holds [PK0[q], PK1[q]) (binary searches)
+    // entries before S₀ are [0, kS0), from S_N on [kSN, n); piece q holds the entries in [a_q, b_q) (bisection)
     const kS0 = lowerBound(T, n, S0), kSN = lowerBound(T, n, SN);
-    if (P) for (let q = 0; q < P.count; q++) { PK0[q] = lowerBound(T, n, P.a[q]); PK1[q] = lowerBound(T, n, P.last[q] ? S[P.seg[q] + 1] : P.b[q]); }
     // the segment holding T[k]: the largest i < ns with S_i ≤ t (as sourceValue's binary search), −1 outside [S₀, S_N)
     const segOf = (k: number): number => {
       const t = T[k];
@@ -225,7 +223,9 @@ export class LazyTrials {
     const vals = (k: number): void => {
       if (HAVE[k] & 1) return;
       HAVE[k] |= 1;
-      XV[k] = entryValue(src, T[k], segOf(k));
+      const seg = segOf(k);
+      XV[k] = entryValue(src, T[k], seg);
+      if (seg >= 0) SG[k] = seg;
     };
     const slps = (k: number): void => {
       if (HAVE[k] & 2) return;
@@ -269,13 +269,13 @@ export class LazyTrials {
       for (let k = k0; k <= k1; k++) { vals(k); if (this.hermite) slps(k); }
       roundTripRange(qv, XV, DV, k0, k1 + 1);
       if (qm) roundTripRange(qm, XM, DM, k0, k1 + 1);
-      const w = window(view);
+      const w = window(view, XV.subarray(0, n), SG.subarray(0, n));
       if (w > tol) return { e: w, fullAt: null };
     }
     for (let k = 0; k < n; k++) { vals(k); if (this.hermite) slps(k); }
     roundTripRange(qv, XV, DV, 0, n);
     if (qm) roundTripRange(qm, XM, DM, 0, n);
-    const m = full(view);
+    const m = full(view, XV.subarray(0, n), SG.subarray(0, n));
     return { e: m.e, fullAt: m.at };
   }
 
@@ -298,13 +298,15 @@ export class LazyTrials {
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];
       if (byLo.bound[q] > lo) break;
-      for (let k = PK0[q]; k < PK1[q]; k++) { get(k); const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; }
+      const k1 = lowerBound(T, n, P.b[q]);
+      for (let k = lowerBound(T, n, P.a[q]); k < k1; k++) { get(k); const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; }
     }
     const byHi = P.byHi[o] as Int32Array & { bound: Float64Array };
     for (let r = 0; r < P.count; r++) {
       const q = byHi[r];
       if (byHi.bound[q] < hi) break;
-      for (let k = PK0[q]; k < PK1[q]; k++) { get(k); const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; }
+      const k1 = lowerBound(T, n, P.b[q]);
+      for (let k = lowerBound(T, n, P.a[q]); k < k1; k++) { get(k); const x = X[k]; if (x < lo) lo = x; if (x > hi) hi = x; }
     }
     return [lo, hi];
   }

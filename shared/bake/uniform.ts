@@ -58,13 +58,25 @@ export function uniformTable(src: BakeSource, profile: Profile, n: number, break
   return assembleTable_(profile, times, null, values, slopes);
 }
 
+/** uniformTable, with the exact entry values and the segment of each (−2 outside [S₀, S_N)) for MeasureOptions.knotValues. */
+function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): { table: Table; values: Float64Array; segs: Int32Array } {
+  const S = src.times;
+  const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
+  const times = uniformTimes_(A, B, n);
+  const values = new Float64Array(n);
+  const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
+  const segs = new Int32Array(n);
+  uniformData(src, times, values, slopes, breaks, segs);
+  return { table: assembleTable_(profile, times, null, values, slopes), values, segs };
+}
+
 /**
  * Exact entry data of a uniform table at `times`: values[k] = sourceValue(t_k), slopes[k] as documented
  * at the top (mean of the one-sided slopes on a slope break, the last segment's slope at the end). The
  * segment holding t_k is found by walking forward (the same segment sourceValue's binary search finds:
  * the largest i < n with S_i ≤ t_k), so each entry costs one evaluation.
  */
-function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[]): void {
+function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array): void {
   const S = src.times;
   const ns = S.length - 1;
   const n = times.length;
@@ -81,6 +93,7 @@ function uniformData(src: BakeSource, times: Float64Array, values: Float64Array,
       seg = i;
       values[k] = src.value(i, t, 0);
     }
+    if (segs) segs[k] = seg >= 0 ? seg : -2;
     if (slopes) {
       while (b < breaks.length && breaks[b].time < t) b++;
       const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
@@ -169,9 +182,6 @@ export function bakeUniform(
   // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
   let failAt = Number.NaN;
   const opts = { tolerance: tol };
-  const build = (n: number): Table | null => {
-    try { return uniformTable(src, profile, n, breaks); } catch { return null; }
-  };
   // lazy trials (./uniform-trial.ts) where the source is sampled (bezier, shapes): evaluations are costly there
   let sampledSource = false;
   for (let i = 0; i + 1 < S.length; i++) if (S[i + 1] > S[i] && !src.poly(i)) sampledSource = true;
@@ -188,8 +198,8 @@ export function bakeUniform(
       const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
       try {
         const r = lazy.run(n, wa, wb, hasWindow, tol,
-          (v) => measureError_(src, v, winOpts, wa, wb).certified,
-          (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
+          (v, knotValues, knotSegments) => measureError_(src, v, { ...winOpts, knotValues, knotSegments }, wa, wb).certified,
+          (v, knotValues, knotSegments) => { const m = measureError_(src, v, { ...estOpts, knotValues, knotSegments }); return { e: m.certified, at: m.at }; });
         e = r.e;
         if (r.fullAt !== null && e > tol) failAt = r.fullAt;
       } catch { e = Infinity; }
@@ -219,9 +229,11 @@ export function bakeUniform(
   };
   const certify = (idx: number): boolean => {
     const n = cand.at(idx);
-    const table = build(n);
-    if (!table) { tried.set(n, Infinity); return false; }
-    const measure = measureError_(src, table, opts);
+    let built: { table: Table; values: Float64Array; segs: Int32Array } | null;
+    try { built = uniformTableWithKnots(src, profile, n, breaks); } catch { built = null; }
+    if (!built) { tried.set(n, Infinity); return false; }
+    const table = built.table;
+    const measure = measureError_(src, table, { ...opts, knotValues: built.values, knotSegments: built.segs });
     tried.set(n, measure.certified);
     tables.set(n, { table, measure });
     return measure.certified <= tol;
