@@ -45,7 +45,7 @@ export function DeliveriesTable({ teamId, webhookId, label }: { teamId: string; 
                   {d.lastError ? <p className="mt-0.5 max-w-xs text-xs text-ink/70 dark:text-paper/70">{d.lastError}</p> : null}
                 </td>
                 <td className="py-2 pr-3 font-mono text-xs">{d.lastStatusCode ?? '—'}</td>
-                <td className="py-2 pr-3 font-mono text-xs">{d.lastResponseMs === null ? '—' : `${d.lastResponseMs} ms`}</td>
+                <td className="py-2 pr-3 font-mono text-xs">{d.lastResponseMs === null || d.lastStatusCode === null ? '—' : `${d.lastResponseMs} ms`}</td>
                 <td className="py-2 pr-3 font-mono text-xs">
                   {d.attempts} of {d.maxAttempts}
                   {d.nextAttemptAt ? <span className="block font-sans text-ink/60 dark:text-paper/60">next {when(d.nextAttemptAt)}</span> : null}

@@ -67,7 +67,7 @@ export function WebhooksPanel({ teamId }: { teamId: string }) {
                   <td className="py-2 pr-3">{w.active ? <StatusWord tone="pass">on</StatusWord> : <StatusWord tone="neutral">off</StatusWord>}</td>
                   <td className="py-2 pr-3 text-xs">
                     {w.lastDelivery ? (
-                      <span className="inline-flex flex-col gap-0.5">
+                      <span className="inline-flex flex-col items-start gap-0.5">
                         <DeliveryState d={w.lastDelivery} />
                         <span className="font-mono">{w.lastDelivery.statusCode ?? '—'} · {when(w.lastDelivery.at)}</span>
                       </span>
