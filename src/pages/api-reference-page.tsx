@@ -13,7 +13,7 @@ import { RequireSignIn } from './require-sign-in';
 import { TeamNav } from './team-nav';
 
 const GROUPS: { tag: string; title: string }[] = [
-  { tag: 'meta', title: 'Who you are' },
+  { tag: 'meta', title: 'The document, and who you are' },
   { tag: 'packs', title: 'Packs, channels and manifests' },
   { tag: 'downloads', title: 'Downloads' },
 ];
