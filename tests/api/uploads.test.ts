@@ -172,6 +172,24 @@ describe('bulk upload API: POST /api/teams/:teamId/packs/:pack/uploads', () => {
     expect(((await send()).body.results as Ok[]).map((x) => x.curves[0]!.name)).toEqual(['fade-3', 'fade-4']);
   });
 
+  it('a JSON array of samples is reduced like a CSV; a tolerance it cannot reach is that file\'s error', async () => {
+    const slug = await freshPack();
+    const pairs = JSON.stringify(SAMPLE_T.map((x) => [x, smoothstep(x)]));
+    const objects = JSON.stringify(SAMPLE_T.map((x) => ({ time: x, value: smoothstep(x) })));
+    // white noise between ±0.5 cannot be followed within 1e-9 by fewer keys than samples
+    const noise = ['time,value', ...Array.from({ length: 50 }, (_, i) => `${i / 49},${(((i * 7919) % 101) / 101) - 0.5}`)].join('\n');
+    const res = await upload(animator, slug).field('tolerance', '1e-9')
+      .attach('files', Buffer.from(noise), 'noise.csv');
+    const [bad] = res.body.results as Bad[];
+    expect(bad).toMatchObject({ file: 'noise.csv', ok: false, field: 'tolerance' });
+    expect(bad!.error).toMatch(/could not be reduced within 1e-9/);
+    const ok = await upload(animator, slug).attach('files', Buffer.from(pairs), 'pairs.json').attach('files', Buffer.from(objects), 'objects.json');
+    const r = ok.body.results as Ok[];
+    expect(r.map((x) => [x.file, x.ok, x.curves[0]!.name])).toEqual([['pairs.json', true, 'pairs'], ['objects.json', true, 'objects']]);
+    for (const x of r) expect(x.curves[0]!.maxError).toBeLessThanOrEqual(1e-3); // the default tolerance
+    expect((await curvesOf(slug)).map((c) => c.name)).toEqual(['pairs', 'objects']);
+  });
+
   it('a file over the size limit is 413 naming the file and the field, and nothing of the request is stored', async () => {
     const slug = await freshPack();
     const big = Buffer.alloc(2 * 1024 * 1024 + 1, 0x30); // "000…", one byte over 2 MB
