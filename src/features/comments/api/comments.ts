@@ -24,8 +24,10 @@ export function useAddComment(teamId: string, slug: string, number: number) {
 export function useVersionCurves(sourceUrl: string | null) {
   return useQuery({
     queryKey: ['artifact', sourceUrl, 'curves'] as const,
-    queryFn: ({ signal }) =>
-      apiRequest<{ curves: CurveDocument[] }>(sourceUrl!, { signal }).then((r) =>
+    // no abort signal: the source is small and immutable, and an aborted download only makes the artifact
+    // route log a premature close
+    queryFn: () =>
+      apiRequest<{ curves: CurveDocument[] }>(sourceUrl!).then((r) =>
         r.curves.map((c) => ({ name: c.name, from: c.keys[0]?.time ?? 0, to: c.keys[c.keys.length - 1]?.time ?? 0 }))),
     enabled: Boolean(sourceUrl),
     staleTime: Infinity,
