@@ -262,3 +262,55 @@ describe('cli pull against the real server', () => {
     }
   }, 60_000);
 });
+
+describe('cli pull with presigned S3 redirects', () => {
+  let t: Awaited<ReturnType<typeof testApp>>;
+  let http: Awaited<ReturnType<typeof listen>>;
+  let out = '';
+  afterAll(async () => {
+    await new Promise((r) => http?.server.close(r));
+    if (out) rmSync(out, { recursive: true, force: true });
+    await t?.close();
+  });
+
+  it('follows the 302 to the bucket, checks the bytes, and the second pull asks nothing', async () => {
+    t = await testApp({ label: 'pull-presigned', seed: true, env: { TANGENTRY_DOWNLOAD_REDIRECT: 'presigned' } });
+    const team = await teamId('ui-motion');
+    const cookies: string[] = [];
+    let leadId = '';
+    for (const role of ['animator', 'lead'] as const) {
+      const email = uniqueEmail(`pull-presigned-${role}`);
+      const id = await createPerson({ email, password: PASSWORD, teams: { 'ui-motion': role } });
+      if (role === 'lead') leadId = id;
+      cookies.push(await signIn(t.app, email, PASSWORD));
+    }
+    const [animator, lead] = cookies as [string, string];
+    const base = `/api/teams/${team}/packs/${PACK}`;
+    expect((await request(t.app).post(`/api/teams/${team}/packs`).set('Cookie', animator).set('Origin', ORIGIN).send({ name: 'Build pull' })).status).toBe(201);
+    expect((await request(t.app).post(`${base}/curves`).set('Cookie', animator).set('Origin', ORIGIN).send({ document: doc('panel-in', 0.6) })).status).toBe(201);
+    const { version } = await proposeAndWait(t.app, animator, team, PACK, 'first');
+    expect((await request(t.app).post(`${base}/versions/${version.number}/reviews`).set('Cookie', lead).set('Origin', ORIGIN).send({ decision: 'approve' })).status).toBe(201);
+    expect((await request(t.app).put(`${base}/channels/shipping`).set('Cookie', lead).set('Origin', ORIGIN).send({ version: version.number })).status).toBe(200);
+    const { secret } = await createToken(team, { name: 'presigned farm' }, leadId);
+    http = await listen(t.app as never);
+    out = mkdtempSync(join(tmpdir(), 'tangentry-pull-presigned-'));
+    const argv = ['--server', http.url, '--pack', PACK, '--channel', 'shipping', '--target', 'handheld', '--format', 'binary', '--out', out, '--json'];
+
+    const first = await pull(argv, { TANGENTRY_TOKEN: secret });
+    expect(first.code, first.stderr).toBe(0);
+    const artifactHits = http.seen.filter((s) => s.path.includes('/artifacts/'));
+    expect(artifactHits.map((s) => s.status)).toEqual([302]); // the bytes came from the bucket, not the app
+    const file = JSON.parse(first.stdout).files[0];
+    expect(file).toMatchObject({ file: 'handheld.tgpk', action: 'downloaded' });
+    const bytes = readFileSync(join(out, 'handheld.tgpk'));
+    expect(sha256(bytes)).toBe(file.sha256);
+    const stored = await t.ctx.s3.send(new GetObjectCommand({ Bucket: t.config.s3.bucket, Key: `sha256/${file.sha256}` }));
+    expect(Buffer.from(await stored.Body!.transformToByteArray()).equals(bytes)).toBe(true);
+
+    http.seen.length = 0;
+    const second = await pull(argv, { TANGENTRY_TOKEN: secret });
+    expect(second.code, second.stderr).toBe(0);
+    expect(JSON.parse(second.stdout).files[0].action).toBe('unchanged');
+    expect(http.seen.filter((s) => s.path.includes('/artifacts/'))).toEqual([]);
+  });
+});
