@@ -87,7 +87,7 @@ test('an animator proposes a version and sees its bake per target and its downlo
   const bake = page.getByRole('table', { name: 'Bake per target' });
   for (const target of ['Console', 'Handheld', 'Mobile', 'Web']) await expect(bake.getByRole('rowheader', { name: target })).toBeVisible();
   const artifacts = page.getByRole('table', { name: 'Artifacts' });
-  await expect(artifacts.getByRole('row')).toHaveCount(11); // header + source + 4 × (JSON, binary) + Web CSS
+  await expect(artifacts.getByRole('row')).toHaveCount(23); // header + source + 4 × (JSON, binary, C99 header, TS module, glTF) + Web CSS
   await page.screenshot({ path: `${SHOTS}/library-version.png`, fullPage: true });
 
   const row = artifacts.getByRole('row', { name: /Console.*binary pack/ });

@@ -15,6 +15,7 @@ import { NO_FILTER, matchesFilter, moved, placed, tagsOf, type CurveFilter } fro
 import { CurveDnd, DraggableSlot, PackDropStrip, type DropResult } from '../features/packs/components/curve-drag';
 import { useVersions } from '../features/packs/api/versions';
 import { ProposeVersionForm } from '../features/packs/components/propose-version-form';
+import { BakeProgress } from '../features/packs/bake-progress';
 import { VersionsList } from '../features/packs/components/versions-list';
 import { ChannelsPanel } from '../features/packs/components/channels-panel';
 import { BulkUploadPanel } from '../features/packs/bulk-upload-panel';
@@ -124,6 +125,7 @@ function PackOfTeam({ teamId, role, slug }: { teamId: string; role: Role; slug: 
 
       <Card className="mt-8 p-5">
         <h2 className="text-lg font-semibold">Versions</h2>
+        <div className="mt-2"><BakeProgress teamId={teamId} slug={slug} canRetry={roleCan(role, 'versions.propose')} /></div>
         <div className="mt-2">
           {versions.isPending ? <p className="text-sm">Loading versions…</p> : versions.isError ? <p role="alert">Could not load the versions: {versions.error.message}</p> : <VersionsList slug={slug} versions={versions.data} />}
         </div>

@@ -26,14 +26,7 @@ export function useVersion(teamId: string | undefined, slug: string, number: num
   });
 }
 
-/** `POST …/versions { changelog }` → 201 once the source and every target's artifacts are stored. */
-export function useProposeVersion(teamId: string, slug: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (changelog: string) => apiRequest<{ version: VersionDto }>(base(teamId, slug), { method: 'POST', body: { changelog } }).then((r) => r.version),
-    onSettled: () => qc.invalidateQueries({ queryKey: versionsQueryKey(teamId, slug) }),
-  });
-}
+/** Proposing (`POST …/versions` → 202 { bake }) and following the bake are in ./bakes.ts. */
 
 /** Where the browser downloads an artifact (the server streams it from the bucket). */
 export const artifactUrl = (teamId: string, slug: string, number: number, artifactId: string) => `${base(teamId, slug)}/${number}/artifacts/${artifactId}`;
