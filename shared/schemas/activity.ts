@@ -109,7 +109,12 @@ export function describeActivity(a: Pick<ActivityItem, 'type' | 'pack' | 'subjec
       return `copied the curve ${str(d.from) ?? label} from ${pack} to ${str(d.toPack) ?? 'another pack'}${as && as !== (str(d.from) ?? label) ? ` as ${as}` : ''}`;
     }
     case 'curves.reordered': return `reordered the curves of ${pack}`;
-    case 'curves.uploaded': return num(d.count) === null ? `uploaded curves to ${pack}` : `uploaded ${num(d.count)} curve${num(d.count) === 1 ? '' : 's'} to ${pack}`;
+    case 'curves.uploaded': {
+      // server/uploads publishes { files, stored, failed, curves }
+      const n = num(d.curves);
+      const files = num(d.files);
+      return n === null ? `uploaded curves to ${pack}` : `uploaded ${n} curve${n === 1 ? '' : 's'} to ${pack}${files === null ? '' : ` from ${files} file${files === 1 ? '' : 's'}`}`;
+    }
     case 'profile.created': return `added the target profile ${label}`;
     case 'profile.updated': return `changed the target profile ${label}`;
     case 'profile.deleted': return `deleted the target profile ${label}`;
