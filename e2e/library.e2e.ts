@@ -133,7 +133,7 @@ test('a lead compares v2 with v1 (a changed curve with its max deviation), reque
   await page.getByLabel('Request changes').check();
   await page.getByRole('button', { name: 'Send review' }).click();
   await expect(page.locator('#review-comment-error')).toContainText('comment');
-  await page.getByLabel('Comment').fill('Keep the fade going to silence.');
+  await page.getByLabel('Review comment').fill('Keep the fade going to silence.');
   await page.getByRole('button', { name: 'Send review' }).click();
   await expect(page.getByRole('list', { name: 'Reviews' })).toContainText('requested changes: Keep the fade going to silence.');
   await page.getByLabel('Approve').check();

@@ -27,7 +27,7 @@ export function ReviewForm({ teamId, slug, number }: { teamId: string; slug: str
         <label className="flex items-center gap-1"><input type="radio" name="decision" checked={decision === 'request-changes'} onChange={() => setDecision('request-changes')} /> Request changes</label>
       </fieldset>
       <div>
-        <label htmlFor="review-comment" className="text-sm font-medium">Comment</label>
+        <label htmlFor="review-comment" className="text-sm font-medium">Review comment</label>
         <textarea id="review-comment" rows={2} className={inputClass} value={comment} onChange={(e) => setComment(e.target.value)}
           aria-invalid={fields.comment ? true : undefined} aria-describedby={fields.comment ? 'review-comment-error' : undefined} />
         <FieldError id="review-comment-error" message={fields.comment} />
