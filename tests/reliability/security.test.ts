@@ -42,10 +42,11 @@ const lastSessionCookie = (setCookie: unknown) => {
   return list[list.length - 1]!.split(';')[0]!;
 };
 /** supertest parser that keeps the raw bytes. */
-const raw = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+const raw = (res: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => cb(null, Buffer.concat(chunks)));
 };
 
 describe('security review', () => {
