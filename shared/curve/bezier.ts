@@ -54,25 +54,21 @@ export function bezierSolve(x0: number, x1: number, x2: number, x3: number, t: n
 }
 
 /**
- * bezierSolve(0, x1, x2, 1, X) with a small memo of the last SOLVE_SLOTS results (a pure function of
- * x1, x2 and X, so a hit returns the very same double). The baker asks for the same time several times
- * in a row: a table entry's value and slope, the derivative bound of the interval on each side, the error
- * samples at the interval's ends.
+ * bezierSolve(0, x1, x2, 1, X) with a memo (a pure function of x1, x2 and X, so a hit returns the very
+ * same double): direct-mapped, SOLVE_SLOTS slots chosen from X. The baker asks for the same times
+ * again and again: a table entry's value and slope, the derivative bound of the interval on each side,
+ * the error samples at the interval's ends.
  */
-const SOLVE_SLOTS = 8;
+const SOLVE_SLOTS = 4096;
 const SOLVE_KEYS = new Float64Array(3 * SOLVE_SLOTS).fill(Number.NaN);
 const SOLVE_VALUES = new Float64Array(SOLVE_SLOTS);
-let solveNext = 0;
 export function bezierSolveUnit(x1: number, x2: number, X: number): number {
-  for (let j = 0; j < SOLVE_SLOTS; j++) {
-    const o = 3 * j;
-    if (SOLVE_KEYS[o] === X && SOLVE_KEYS[o + 1] === x1 && SOLVE_KEYS[o + 2] === x2) return SOLVE_VALUES[j];
-  }
+  const j = ((X * 2654435.769) | 0) & (SOLVE_SLOTS - 1);
+  const o = 3 * j;
+  if (SOLVE_KEYS[o] === X && SOLVE_KEYS[o + 1] === x1 && SOLVE_KEYS[o + 2] === x2) return SOLVE_VALUES[j];
   const s = bezierSolve(0, x1, x2, 1, X);
-  const o = 3 * solveNext;
   SOLVE_KEYS[o] = X; SOLVE_KEYS[o + 1] = x1; SOLVE_KEYS[o + 2] = x2;
-  SOLVE_VALUES[solveNext] = s;
-  solveNext = (solveNext + 1) % SOLVE_SLOTS;
+  SOLVE_VALUES[j] = s;
   return s;
 }
 

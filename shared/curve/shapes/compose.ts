@@ -44,6 +44,8 @@ export function shapeValue(shape: Shape, s: number, order: 0 | 1 | 2 | 3 | 4 = 0
 }
 
 const breakCache = new Map<string, readonly ShapeBreak[]>();
+/** The same lists by shape object (family and ease kept to notice a shape edited in place). */
+const byShape = new WeakMap<Shape, { family: string; ease: string; breaks: readonly ShapeBreak[] }>();
 
 /**
  * Points s ∈ (0, 1) where a derivative of order ≤ 4 of the shape jumps or is infinite, each with
@@ -51,9 +53,12 @@ const breakCache = new Map<string, readonly ShapeBreak[]>();
  * for out, halved and mirrored for in-out, plus s = ½ in in-out unless the join is smooth (sine).
  */
 export function shapeBreakDetails(shape: Shape): readonly ShapeBreak[] {
+  // first by the shape object itself (no key string per call: the baker asks on every derivative bound)
+  const own = byShape.get(shape);
+  if (own && own.family === shape.family && own.ease === shape.ease) return own.breaks;
   const key = `${shape.family}/${shape.ease}`;
   const hit = breakCache.get(key);
-  if (hit) return hit;
+  if (hit) { byShape.set(shape, { family: shape.family, ease: shape.ease, breaks: hit }); return hit; }
   const fam = FAMILIES[shape.family];
   let out: ShapeBreak[];
   if (shape.ease === 'in') out = fam.breaks.slice();
@@ -65,6 +70,7 @@ export function shapeBreakDetails(shape: Shape): readonly ShapeBreak[] {
   }
   out.sort((a, b) => a.s - b.s);
   breakCache.set(key, out);
+  byShape.set(shape, { family: shape.family, ease: shape.ease, breaks: out });
   return out;
 }
 
