@@ -72,10 +72,9 @@ function readPlaywright(file: string): Tally {
 
 async function main(): Promise<number> {
   const failures: string[] = [];
-  const reports = join(root, '.tmp', 'reports');
-  mkdirSync(reports, { recursive: true });
-  rmSync(join(reports, 'vitest.json'), { force: true });
-  rmSync(join(reports, 'playwright.json'), { force: true });
+  // one report folder per run, so runs side by side (several people on one machine) never read each other's counts
+  mkdirSync(join(root, '.tmp'), { recursive: true });
+  const reports = mkdtempSync(join(root, '.tmp', 'reports-'));
 
   if (!skipTypecheck && only !== 'e2e') {
     if ((await run(bin('tsc'), ['--noEmit', '-p', 'tsconfig.json'])) !== 0) failures.push('type check');
@@ -160,7 +159,8 @@ async function main(): Promise<number> {
   const v = readVitest(join(reports, 'vitest.json'));
   const p = readPlaywright(join(reports, 'playwright.json'));
   const failed = v.failed + p.failed + failures.filter((f) => f !== 'vitest' && f !== 'e2e').length;
-  console.log(`\nvitest: ${v.passed} passed, ${v.failed} failed; playwright: ${p.passed} passed, ${p.failed} failed`);
+  console.log(`\nreports: ${reports.replace(root + '/', '')}`);
+  console.log(`vitest: ${v.passed} passed, ${v.failed} failed; playwright: ${p.passed} passed, ${p.failed} failed`);
   if (failures.length) console.log(`Failed steps: ${failures.join(', ')}`);
   const summaryFailed = failures.length && failed === 0 ? failures.length : failed;
   console.log(`${v.passed + p.passed} passed, ${summaryFailed} failed`);
