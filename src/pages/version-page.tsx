@@ -9,6 +9,7 @@ import { ArtifactsTable } from '../features/packs/components/artifacts-table';
 import { BakeSummaryTable } from '../features/packs/components/bake-summary-table';
 import { RequireSignIn } from './require-sign-in';
 import { VersionComments } from '../features/comments/components/version-comments';
+import { useComments } from '../features/comments/api/comments';
 
 /** /packs/:pack/versions/:number: an immutable pack version, its bake per target and its downloads. */
 export function VersionPage() {
@@ -23,6 +24,9 @@ function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: R
   // compare with the version before by default, or any other one the reader picks
   const against = chosen ?? (number > 1 ? number - 1 : null);
   const cmp = useComparison(teamId, slug, number, against);
+  const comments = useComments(teamId, slug, number);
+  // comments pinned to a curve at a time show on that curve's overlay
+  const pins = (comments.data ?? []).flatMap((c) => (c.curve !== null && c.time !== null ? [{ curve: c.curve, time: c.time, label: `${c.author?.name ?? 'someone'}: ${c.body}` }] : []));
   const others = (all.data ?? []).filter((x) => x.number !== number);
   if (q.isPending) return <p>Loading v{number}…</p>;
   if (q.isError) return <p role="alert">Could not load v{number} of “{slug}”: {q.error.message}</p>;
@@ -59,7 +63,7 @@ function VersionOfTeam({ teamId, role, slug, number }: { teamId: string; role: R
           {against === null ? <p className="text-sm">v1 is the first version: every curve is new.</p>
             : cmp.isPending ? <p className="text-sm">Comparing with v{against}…</p>
             : cmp.isError ? <p role="alert">Could not compare: {cmp.error.message}</p>
-            : <ComparisonView c={cmp.data} />}
+            : <ComparisonView c={cmp.data} pins={pins} />}
         </div>
         {roleCan(role, 'versions.review') ? <div className="mt-4 border-t border-grid-minor pt-4 dark:border-night-line"><ReviewForm teamId={teamId} slug={slug} number={v.number} /></div> : null}
       </Card>
