@@ -6,7 +6,8 @@
  *   - manifests and channel reads: `Cache-Control: no-cache` and a strong ETag of the body, so a client
  *     revalidates every time and gets 304 when nothing changed;
  *   - artifacts and sources: immutable bytes, ETag `"<sha256>"`, `private, max-age=31536000, immutable`;
- *     a matching If-None-Match answers 304 from the database row alone, without reading the bucket.
+ *     a matching If-None-Match answers 304 from the version's artifact rows alone (kept in memory once
+ *     read: ./api-v1.reads.ts), without reading the bucket.
  * The route list is mirrored in ./openapi.ts; tests/api/api-v1-openapi.test.ts checks both agree.
  */
 import { Router, type Request, type RequestHandler, type Response } from 'express';
@@ -20,6 +21,7 @@ import { HttpError, unauthorized } from '../http/errors';
 import { openObject } from '../storage/content-store';
 import { artifactPathSchema, channelPathSchema, packPathSchema, versionPathSchema } from '../../shared/schemas/api-v1';
 import * as v1 from './api-v1.service';
+import { ImmutableVersions } from './api-v1.reads';
 import { ifNoneMatchMatches, jsonEtag } from './conditional';
 import { problemErrorHandler, problemNotFound } from './problem';
 import { apiV1RateLimiter } from './rate-limit';
@@ -53,6 +55,8 @@ export function apiV1Routes(ctx: AppContext): Router {
   const { publicUrl, apiV1 } = ctx.config;
   const team = '/v1/teams/:teamId';
   const version = `${team}/packs/:pack/versions/:number`;
+  // the parts of versions that never change, per app instance (channels and review states are always read)
+  const versions = new ImmutableVersions();
 
   router.use('/v1', apiV1RateLimiter(ctx.config));
 
@@ -108,25 +112,25 @@ export function apiV1Routes(ctx: AppContext): Router {
   // GET …/packs/:pack/channels/:channel → { pack, channel, version, manifest }
   router.get(`${team}/packs/:pack/channels/:channel`, requireTeam('team.read'), async (req, res) => {
     const q = channelPathSchema.parse(req.params);
-    sendRevalidated(req, res, await v1.channelManifest(storage, principalOf(res), q.teamId, q.pack, q.channel));
+    sendRevalidated(req, res, await v1.channelManifest(storage, versions, principalOf(res), q.teamId, q.pack, q.channel));
   });
 
   // GET …/versions/:number → { manifest } (its review state can change, so revalidated too)
   router.get(version, requireTeam('team.read'), async (req, res) => {
     const q = versionPathSchema.parse(req.params);
-    sendRevalidated(req, res, { manifest: await v1.versionManifest(storage, principalOf(res), q.teamId, q.pack, q.number) });
+    sendRevalidated(req, res, { manifest: await v1.versionManifest(storage, versions, principalOf(res), q.teamId, q.pack, q.number) });
   });
 
   // GET …/versions/:number/source → the canonical JSON source (immutable)
   router.get(`${version}/source`, requireTeam('artifacts.download'), async (req, res) => {
     const q = versionPathSchema.parse(req.params);
-    await sendDownload(req, res, await v1.findSource(principalOf(res), q.teamId, q.pack, q.number));
+    await sendDownload(req, res, await v1.findSource(versions, principalOf(res), q.teamId, q.pack, q.number));
   });
 
   // GET …/versions/:number/artifacts/:target/:format → the artifact's bytes (immutable)
   router.get(`${version}/artifacts/:target/:format`, requireTeam('artifacts.download'), async (req, res) => {
     const q = artifactPathSchema.parse(req.params);
-    await sendDownload(req, res, await v1.findDownload(principalOf(res), q.teamId, q.pack, q.number, q.target, q.format));
+    await sendDownload(req, res, await v1.findDownload(versions, principalOf(res), q.teamId, q.pack, q.number, q.target, q.format));
   });
 
   router.use('/v1', problemNotFound(publicUrl));

@@ -1,20 +1,20 @@
 /**
  * The build-server API's reads, built on the packs, versions, channels and profiles modules:
  * who is asking, the team's packs with their latest version and channels, a version's manifest,
- * a channel's manifest, and the stored object behind a download URL.
+ * a channel's manifest, and the stored object behind a download URL. The hot reads (manifests, channel
+ * reads, downloads) are the joined queries of ./api-v1.reads.ts, not the versions/channels services.
  */
-import type { Principal } from '../auth/principal';
+import { tokenAllowsPack, type Principal } from '../auth/principal';
 import { notFound } from '../http/errors';
-import { listPacks } from '../packs/packs.service';
-import { getVersion, type Storage } from '../versions/versions.service';
-import { listChannels } from '../channels/channels.service';
+import { getPack, listPacks } from '../packs/packs.service';
+import type { Storage } from '../versions/versions.service';
 import { listProfiles } from '../profiles/profiles.repository';
 import { findTeam, teamsOfUser } from '../teams/teams.repository';
 import { readContentAddressed } from '../storage/content-store';
 import { fileStem } from '../versions/build-artifacts';
-import type { ArtifactDto, VersionDto } from '../../shared/schemas/versions';
 import type { ManifestDto, ManifestTargetDto, PackSummaryV1, WhoamiDto } from '../../shared/schemas/api-v1';
 import { channelPointers, latestVersionNumbers } from './api-v1.repository';
+import { versionByNumber, versionOfChannel, type ArtifactRow, type ImmutableVersion, type ImmutableVersions, type VersionRead } from './api-v1.reads';
 
 export async function whoami(p: Principal): Promise<WhoamiDto> {
   if (p.kind === 'token') {
@@ -52,14 +52,24 @@ async function curveNames(storage: Storage, key: string): Promise<string[]> {
 
 export const versionPath = (teamId: string, slug: string, number: number) => `/api/v1/teams/${teamId}/packs/${slug}/versions/${number}`;
 
+/** A token limited to other packs, or no such pack: the packs service's 404 (no query for the former). */
+async function refusePack(p: Principal, teamId: string, slug: string): Promise<void> {
+  await getPack(p, teamId, slug);
+}
+
 /**
- * A version's manifest. Targets are in the order they were baked; kernel, layout, encoding and
- * tolerance are those of the team's target profile of that name as defined now (null when it was
- * deleted), since a version stores its tables, not a copy of the profile.
+ * A version's manifest. Targets are in the order they were baked. Kernel, layout, encoding and tolerance
+ * are those of the profile snapshot the version was baked with (its bake row, version_bakes.profiles), so
+ * editing or deleting a profile later does not change what an old manifest says. Versions made before
+ * background bakes have no snapshot: for them the team's profile of that name as defined now is shown
+ * (null when it was deleted).
  */
-export async function manifestOf(storage: Storage, teamId: string, slug: string, v: VersionDto): Promise<ManifestDto> {
-  const [names, profiles] = await Promise.all([curveNames(storage, v.source.key), listProfiles(teamId)]);
-  const byName = new Map(profiles.map((s) => [s.profile.name, s.profile]));
+export async function manifestOf(storage: Storage, teamId: string, slug: string, v: VersionRead): Promise<ManifestDto> {
+  const [names, profiles] = await Promise.all([
+    curveNames(storage, v.source.key),
+    v.bakedProfiles ?? listProfiles(teamId).then((list) => list.map((s) => s.profile)),
+  ]);
+  const byName = new Map(profiles.map((profile) => [profile.name, profile]));
   const base = versionPath(teamId, slug, v.number);
   const targets = new Map<string, ManifestTargetDto>();
   for (const a of v.artifacts) {
@@ -85,15 +95,28 @@ export async function manifestOf(storage: Storage, teamId: string, slug: string,
   };
 }
 
-export async function versionManifest(storage: Storage, p: Principal, teamId: string, slug: string, number: number): Promise<ManifestDto> {
-  return manifestOf(storage, teamId, slug, await getVersion(p, teamId, slug, number));
+/** One joined query (./api-v1.reads.ts); the immutable part is remembered for downloads. */
+export async function versionManifest(storage: Storage, versions: ImmutableVersions, p: Principal, teamId: string, slug: string, number: number): Promise<ManifestDto> {
+  if (!tokenAllowsPack(p, slug)) await refusePack(p, teamId, slug);
+  const v = await versionByNumber(teamId, slug, number);
+  if (!v) {
+    await refusePack(p, teamId, slug);
+    throw notFound(`Pack "${slug}" has no version v${number}.`);
+  }
+  versions.remember(teamId, slug, v);
+  return manifestOf(storage, teamId, slug, v);
 }
 
-export async function channelManifest(storage: Storage, p: Principal, teamId: string, slug: string, channel: string): Promise<{ pack: string; channel: string; version: number; manifest: ManifestDto }> {
-  const c = (await listChannels(p, teamId, slug)).find((x) => x.name === channel);
-  if (!c) throw notFound(`Pack "${slug}" has no channel "${channel}".`);
-  const manifest = await versionManifest(storage, p, teamId, slug, c.version);
-  return { pack: slug, channel: c.name, version: c.version, manifest };
+/** The channel pointer is read from the database every time, joined to its version in the same query. */
+export async function channelManifest(storage: Storage, versions: ImmutableVersions, p: Principal, teamId: string, slug: string, channel: string): Promise<{ pack: string; channel: string; version: number; manifest: ManifestDto }> {
+  if (!tokenAllowsPack(p, slug)) await refusePack(p, teamId, slug);
+  const v = await versionOfChannel(teamId, slug, channel);
+  if (!v) {
+    await refusePack(p, teamId, slug);
+    throw notFound(`Pack "${slug}" has no channel "${channel}".`);
+  }
+  versions.remember(teamId, slug, v);
+  return { pack: slug, channel, version: v.number, manifest: await manifestOf(storage, teamId, slug, v) };
 }
 
 export interface Download {
@@ -104,13 +127,22 @@ export interface Download {
   downloadName: string;
 }
 
-const asDownload = (slug: string, number: number, a: Pick<ArtifactDto, 'sha256' | 'size' | 'mediaType' | 'key' | 'fileName'>): Download => ({
+const asDownload = (slug: string, number: number, a: Pick<ArtifactRow, 'sha256' | 'size' | 'mediaType' | 'key' | 'fileName'>): Download => ({
   sha256: a.sha256, size: a.size, mediaType: a.mediaType, key: a.key, downloadName: `${slug}-v${number}-${a.fileName}`,
 });
 
+/** The immutable part of a version the caller may read (memory, else one query), or the 404 it gets. */
+async function immutableVersion(versions: ImmutableVersions, p: Principal, teamId: string, slug: string, number: number): Promise<ImmutableVersion> {
+  if (!tokenAllowsPack(p, slug)) await refusePack(p, teamId, slug);
+  const v = await versions.get(teamId, slug, number);
+  if (v) return v;
+  await refusePack(p, teamId, slug);
+  throw notFound(`Pack "${slug}" has no version v${number}.`);
+}
+
 /** The stored artifact of version `number` for a target (by file stem) and format. */
-export async function findDownload(p: Principal, teamId: string, slug: string, number: number, target: string, format: string): Promise<Download> {
-  const v = await getVersion(p, teamId, slug, number);
+export async function findDownload(versions: ImmutableVersions, p: Principal, teamId: string, slug: string, number: number, target: string, format: string): Promise<Download> {
+  const v = await immutableVersion(versions, p, teamId, slug, number);
   const ofTarget = v.artifacts.filter((a) => a.profileName !== null && fileStem(a.profileName) === target);
   if (ofTarget.length === 0) {
     const known = [...new Set(v.artifacts.filter((a) => a.profileName !== null).map((a) => fileStem(a.profileName!)))];
@@ -121,9 +153,8 @@ export async function findDownload(p: Principal, teamId: string, slug: string, n
   return asDownload(slug, number, a);
 }
 
-export async function findSource(p: Principal, teamId: string, slug: string, number: number): Promise<Download> {
-  const v = await getVersion(p, teamId, slug, number);
+export async function findSource(versions: ImmutableVersions, p: Principal, teamId: string, slug: string, number: number): Promise<Download> {
+  const v = await immutableVersion(versions, p, teamId, slug, number);
   const a = v.artifacts.find((x) => x.profileName === null && x.format === 'source');
   return asDownload(slug, number, a ?? { ...v.source, mediaType: 'application/json', fileName: 'source.json' });
 }
-

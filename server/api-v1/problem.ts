@@ -9,7 +9,7 @@ import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { ZodError } from 'zod';
 import type { Logger } from 'pino';
 import { HttpError } from '../http/errors';
-import { zodFields } from '../http/error-middleware';
+import { endAfterHeadersSent, zodFields } from '../http/error-middleware';
 import { PROBLEM_MEDIA_TYPE, type ProblemDto } from '../../shared/schemas/api-v1';
 
 /** Titles per stable code; a code not listed here takes its status's title. */
@@ -50,8 +50,9 @@ const fieldsToErrors = (fields: Record<string, string>) => Object.entries(fields
 
 /** Error handler mounted for /api/v1: every error becomes a problem detail. */
 export function problemErrorHandler(publicUrl: string, logger: Logger): ErrorRequestHandler {
-  return (err, req, res, next) => {
-    if (res.headersSent) return next(err);
+  return (err, req, res, _next) => {
+    // a download the client abandoned: headers are out, so close the response instead of answering
+    if (endAfterHeadersSent(err, req, res, logger)) return;
     const instance = req.originalUrl.split('?')[0];
     if (err instanceof HttpError) {
       return sendProblem(res, problem(publicUrl, err.status, err.code, err.message, { instance, errors: err.fields ? fieldsToErrors(err.fields) : undefined }));

@@ -1,4 +1,4 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler, Response } from 'express';
 import { ZodError } from 'zod';
 import { ConnectionError, DatabaseError } from 'sequelize';
 import type { Logger } from 'pino';
@@ -46,8 +46,27 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   return false;
 }
 
+/** Errors a response stream fails with when the client went away (Node stream and socket codes). */
+const CLIENT_ABORT_CODES = new Set(['ERR_STREAM_PREMATURE_CLOSE', 'ECONNRESET', 'EPIPE']);
+
+/**
+ * An error after the status line and headers went out (a download the client abandoned mid-stream):
+ * no error answer can be sent any more (it would throw ERR_HTTP_HEADERS_SENT), so the response is
+ * destroyed, which closes the connection and tells the client the body is incomplete. A client abort is
+ * logged at debug, anything else as an error. Returns false when headers were not sent yet.
+ */
+export function endAfterHeadersSent(err: unknown, req: Request, res: Response, logger: Logger): boolean {
+  if (!res.headersSent) return false;
+  const code = String((err as { code?: unknown })?.code ?? '');
+  if (CLIENT_ABORT_CODES.has(code)) logger.debug({ code, method: req.method, path: req.path }, 'client aborted the response');
+  else logger.error({ err, method: req.method, path: req.path }, 'error after the response headers were sent');
+  res.destroy();
+  return true;
+}
+
 export function errorMiddleware(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
+    if (endAfterHeadersSent(err, req, res, logger)) return;
     if (isDatabaseUnavailable(err)) {
       logger.warn({ err: (err as Error)?.message, method: req.method, path: req.path }, 'database unavailable');
       res.set('Retry-After', '5');
