@@ -23,8 +23,13 @@ export async function revokeToken(teamId: string, id: string): Promise<void> {
 
 export type TokenCheck = { ok: true; token: repo.StoredToken } | { ok: false; message: string };
 
-/** Last use is written at most once a minute per token (a build farm can poll often). */
+/**
+ * Last use is written at most once a minute per token (a build farm can poll often). The stored value
+ * decides across instances; `touchedAt` (this process's last write per token id) keeps a burst of
+ * concurrent requests that all read the same old value from writing it once each.
+ */
 const TOUCH_EVERY_MS = 60_000;
+const touchedAt = new Map<string, number>();
 
 export async function authenticateToken(presented: string): Promise<TokenCheck> {
   const parsed = parseToken('tgt', presented);
@@ -35,7 +40,9 @@ export async function authenticateToken(presented: string): Promise<TokenCheck> 
   if (!found || !matches) return { ok: false, message: 'The bearer token is not valid.' };
   if (found.token.revokedAt) return { ok: false, message: 'This service token was revoked.' };
   const now = new Date();
-  if (!found.token.lastUsedAt || now.getTime() - Date.parse(found.token.lastUsedAt) > TOUCH_EVERY_MS) {
+  const last = Math.max(found.token.lastUsedAt ? Date.parse(found.token.lastUsedAt) : 0, touchedAt.get(found.token.id) ?? 0);
+  if (now.getTime() - last > TOUCH_EVERY_MS) {
+    touchedAt.set(found.token.id, now.getTime());
     await repo.touchToken(found.token.id, now);
     found.token.lastUsedAt = now.toISOString();
   }

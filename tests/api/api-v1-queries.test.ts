@@ -133,6 +133,18 @@ describe('API v1: queries per request, and manifests from the bake snapshot', ()
       expect(sql.length, sql.join('\n')).toBeLessThanOrEqual(3);
     });
 
+    it('a burst of concurrent first requests by a new token writes its last use once', async () => {
+      const fresh = (await createToken(team, { name: 'burst' }, adminId)).secret;
+      const sql = await sqlOf(() =>
+        Promise.all(Array.from({ length: 6 }, async () => {
+          expect((await request(t.app).get(artifact()).set({ Authorization: `Bearer ${fresh}` }).buffer(true)).status).toBe(200);
+        })),
+      );
+      expect(sql.filter((s) => /UPDATE\s+"?service_tokens/i.test(s)).length, sql.join('\n')).toBe(1);
+      const listed = await request(t.app).get('/api/v1/whoami').set({ Authorization: `Bearer ${fresh}` });
+      expect(listed.status).toBe(200);
+    });
+
     it('a channel move is seen at once (the pointer is never cached)', async () => {
       const storage = { s3: t.ctx.s3, bucket };
       await proposeVersion(storage, someone, team, 'menu-transitions', 'Second.', adminId);
