@@ -14,6 +14,8 @@ import { createApp } from './app';
 import { ensureBucket } from './storage/s3-client';
 import { startJobs, stopJobs } from './jobs/boss';
 import { createWebhookDispatcher } from './webhooks/dispatcher';
+import { startSessionSweep } from './auth/session-sweep';
+import { closeRateLimitPools } from './http/pg-rate-limit-store';
 
 export interface RunningServer {
   ctx: AppContext;
@@ -41,6 +43,7 @@ export async function startServer(
     server.listen(config.port, config.host, () => resolve());
   });
   const webhooks = createWebhookDispatcher(ctx); // delivers webhooks from this process (server/webhooks/dispatcher.ts)
+  const sessionSweep = startSessionSweep(ctx); // deletes expired sessions, one instance at a time (advisory lock)
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.port;
   return {
@@ -53,9 +56,11 @@ export async function startServer(
       server.closeIdleConnections();
       setTimeout(() => server.closeAllConnections(), 2_000).unref();
       await webhooks.stop();
+      await sessionSweep.stop();
       await closed;
       await stopJobs(ctx).catch((err) => ctx.logger.warn({ err: (err as Error).message }, 'pg-boss did not stop cleanly'));
       await closeContext(ctx);
+      await closeRateLimitPools();
     },
   };
 }

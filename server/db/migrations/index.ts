@@ -10,6 +10,7 @@ import * as m0008 from './0008-webhooks';
 import * as m0009 from './0009-background-bakes';
 import * as m0010 from './0010-activity-and-comments';
 import * as m0011 from './0011-mail-outbox';
+import * as m0012 from './0012-rate-limits';
 
 export interface Migration {
   name: string;
@@ -30,4 +31,5 @@ export const migrations: Migration[] = [
   { name: '0009-background-bakes', ...m0009 },
   { name: '0010-activity-and-comments', ...m0010 },
   { name: '0011-mail-outbox', ...m0011 },
+  { name: '0012-rate-limits', ...m0012 },
 ];
