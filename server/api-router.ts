@@ -20,6 +20,7 @@ import { activityRoutes } from './activity/activity.routes';
 import { commentRoutes } from './comments/comments.routes';
 import { notificationRoutes } from './notifications/notifications.routes';
 import { apiV1Routes } from './api-v1/api-v1.routes';
+import { problemErrorHandler } from './api-v1/problem';
 import { uploadRoutes } from './uploads/uploads.routes';
 
 /**
@@ -32,6 +33,8 @@ export function apiRouter(ctx: AppContext): Router {
   const api = Router();
   api.use(originCheck(ctx.config));
   api.use(authenticate(ctx));
+  // an origin or sign-in check that fails (or a database that is down) on an /api/v1 path: problem details too
+  api.use('/v1', problemErrorHandler(ctx.config.publicUrl, ctx.logger));
   api.use(apiV1Routes(ctx));
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx));

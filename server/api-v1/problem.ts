@@ -9,7 +9,7 @@ import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { ZodError } from 'zod';
 import type { Logger } from 'pino';
 import { HttpError } from '../http/errors';
-import { endAfterHeadersSent, zodFields } from '../http/error-middleware';
+import { endAfterHeadersSent, isDatabaseUnavailable, zodFields } from '../http/error-middleware';
 import { PROBLEM_MEDIA_TYPE, type ProblemDto } from '../../shared/schemas/api-v1';
 
 /** Titles per stable code; a code not listed here takes its status's title. */
@@ -21,6 +21,7 @@ const TITLES: Record<string, string> = {
   invalid_request: 'Invalid request',
   rate_limited: 'Too many requests',
   storage_unavailable: 'Storage unavailable',
+  database_unavailable: 'Database unavailable',
   internal: 'Internal server error',
 };
 const STATUS_TITLES: Record<number, string> = { 400: 'Bad request', 401: 'Authentication required', 403: 'Not allowed', 404: 'Not found', 409: 'Conflict', 429: 'Too many requests', 500: 'Internal server error', 503: 'Service unavailable' };
@@ -54,6 +55,11 @@ export function problemErrorHandler(publicUrl: string, logger: Logger): ErrorReq
     // a download the client abandoned: headers are out, so close the response instead of answering
     if (endAfterHeadersSent(err, req, res, logger)) return;
     const instance = req.originalUrl.split('?')[0];
+    if (isDatabaseUnavailable(err)) {
+      logger.warn({ err: (err as Error)?.message, method: req.method, path: req.path }, 'database unavailable');
+      res.set('Retry-After', '5');
+      return sendProblem(res, problem(publicUrl, 503, 'database_unavailable', 'The database cannot be reached right now, so the request was not carried out. Try again in a few seconds.', { instance }));
+    }
     if (err instanceof HttpError) {
       return sendProblem(res, problem(publicUrl, err.status, err.code, err.message, { instance, errors: err.fields ? fieldsToErrors(err.fields) : undefined }));
     }

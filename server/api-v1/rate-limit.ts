@@ -19,6 +19,8 @@ export function apiV1RateLimiter(config: Pick<Config, 'apiV1' | 'publicUrl'> & P
     store: config.databaseUrl ? new PgRateLimitStore({ databaseUrl: config.databaseUrl, prefix: `api-v1:${max}/${windowMs}:` }) : undefined,
     windowMs,
     limit: max,
+    // the database being down is answered by the route (503 problem details), not as a limiter 500
+    passOnStoreError: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     keyGenerator: (req, res) => {

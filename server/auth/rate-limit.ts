@@ -15,6 +15,8 @@ export function authRateLimiter(config: Pick<Config, 'authRateLimit'> & Partial<
   return rateLimit({
     store: config.databaseUrl ? new PgRateLimitStore({ databaseUrl: config.databaseUrl, prefix: `auth:${what}:${config.authRateLimit.max}/${config.authRateLimit.windowMs}:` }) : undefined,
     skipSuccessfulRequests: onlyFailures,
+    // the database being down is answered by the route itself (503 database_unavailable), not as a limiter 500
+    passOnStoreError: true,
     windowMs: config.authRateLimit.windowMs,
     limit: config.authRateLimit.max,
     standardHeaders: 'draft-8',

@@ -169,6 +169,11 @@ describe('PostgreSQL restarted under a running server', () => {
       expect(res.body.error.code).toBe('database_unavailable');
       expect(res.headers['retry-after']).toBe('5');
     }
+    // the build-server API (rate limited through a PostgreSQL store) answers in RFC 9457 problem details
+    const v1Down = await request(app).get(`/api/v1/teams/${team}/packs`).set('Cookie', cookie);
+    expect(v1Down.status, JSON.stringify(v1Down.body)).toBe(503);
+    expect(v1Down.headers['content-type']).toMatch(/application\/problem\+json/);
+    expect(v1Down.body.code).toBe('database_unavailable');
     expect(Date.now() - started, 'answered promptly, not after a long hang').toBeLessThan(20_000);
     // health says which part is down (and does not itself fail)
     const health = await request(app).get('/api/health');

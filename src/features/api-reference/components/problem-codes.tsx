@@ -10,6 +10,7 @@ const CODES: { code: string; status: number; meaning: string }[] = [
   { code: 'invalid_request', status: 400, meaning: 'A path parameter is malformed; errors[] names each field.' },
   { code: 'rate_limited', status: 429, meaning: 'Too many requests in the window; wait for Retry-After seconds.' },
   { code: 'storage_unavailable', status: 503, meaning: 'The library bucket did not answer; try again.' },
+  { code: 'database_unavailable', status: 503, meaning: 'The database did not answer; the request was not carried out. Try again after Retry-After seconds.' },
   { code: 'internal', status: 500, meaning: 'A server fault; it has been logged.' },
 ];
 
