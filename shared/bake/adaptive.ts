@@ -13,7 +13,8 @@
  * 4. Refine: every interval is certified with the full measure (exact, or sampled+bound); one that
  *    misses is halved until it passes. For sampled sources the greedy step uses the cheap estimate
  *    (no slack) against 0.95·tolerance, so refinement is rare.
- * Knot values/slopes are the source's exact one-sided values at the knot; unorm offset/scale come from
+ * Knot values/slopes are the source's exact one-sided values at the knot (a slope that is not finite,
+ * at a vertical tangent, is the secant over 2⁻¹⁶ of the domain into the segment: ./slopes.ts); unorm offset/scale come from
  * the source's value and slope ranges, so each interval is measured with its final encoding.
  */
 import type { BakeSource } from './source';
@@ -21,13 +22,17 @@ import type { Profile } from './profile';
 import type { Break } from './breaks';
 import { measureError, type ErrorMeasure } from './measure';
 import type { Table } from './table';
-import { assembleTable, leftValue, rightValue } from './knots';
+import { assembleTable, leftSlope, leftValue, rightSlope, rightValue } from './knots';
+import { finiteSlope } from './slopes';
 import { boundOrder, widthForTolerance } from './bound';
 import { ceilF32, encodeOne, decodeOne, makeQuantizer, type Quantizer } from './encoding';
 import { sourceRange } from './ranges';
 import { segmentAt } from './source';
 
 export interface AdaptiveResult { table: Table; measure: ErrorMeasure }
+
+/** Fraction of the domain a vertical tangent's knot takes its secant slope over (./slopes.ts). */
+const SECANT_FRACTION = 2 ** -16;
 
 interface Knot { stored: number; src: number; v: number; m: number; forced: boolean }
 
@@ -39,6 +44,8 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
   const S = src.times;
   const A = S[0], B = S[S.length - 1];
   const hermite = profile.kernel === 'hermite';
+  // secant width of a knot whose source slope is not finite (a vertical tangent; ./slopes.ts)
+  const SW = (B - A) * SECANT_FRACTION;
   const vr = sourceRange(src, 0);
   const qv = makeQuantizer(profile.encoding, vr.min, vr.max);
   let qm: Quantizer | undefined;
@@ -66,16 +73,16 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       if (hermite) { VIEW_M[0] = rt(qm!, a.m); VIEW_M[1] = rt(qm!, bm); }
       const m = measureError(src, view, intervalOpts, a.stored, bStored === Math.fround(B) ? B : bStored);
       void bSrc;
-      return m.certified <= target;
+      return m.certified <= target; // NaN fails
     };
     let failure: string | null = null;
     const spanEnds: { stored: number; src: number; br: Break | null }[] = forcedTimes
       .map((br) => ({ stored: br.order === 0 ? ceilF32(br.time) : Math.fround(br.time), src: br.time, br }));
     if (!spanEnds.length || spanEnds[spanEnds.length - 1].src < B) spanEnds.push({ stored: Math.fround(B), src: B, br: null });
-    let a: Knot = { stored: Math.fround(A), src: A, v: rightValue(src, A, 0), m: hermite ? rightValue(src, A, 1) : 0, forced: true };
+    let a: Knot = { stored: Math.fround(A), src: A, v: rightValue(src, A, 0), m: hermite ? rightSlope(src, A, SW) : 0, forced: true };
     knots.push(a);
     for (const end of spanEnds) {
-      const endV = leftValue(src, end.src, 0), endM = hermite ? leftValue(src, end.src, 1) : 0;
+      const endV = leftValue(src, end.src, 0), endM = hermite ? leftSlope(src, end.src, SW) : 0;
       const spanStart = knots.length - 1;
       let h = 0;
       while (a.stored < end.stored) {
@@ -92,7 +99,7 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
         const okAt = (w: number): number | null => {
           const t = Math.fround(a.src + w);
           if (!(t > a.stored) || !(t < end.stored)) return null;
-          return intervalOk(a, t, t, leftValue(src, t, 0), hermite ? leftValue(src, t, 1) : 0) ? t : null;
+          return intervalOk(a, t, t, leftValue(src, t, 0), hermite ? leftSlope(src, t, SW) : 0) ? t : null;
         };
         let lo = 0, hi = 0;
         if (okAt(h) !== null) {
@@ -118,7 +125,7 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
         }
         const t = Math.fround(a.src + lo);
         h = lo;
-        a = { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightValue(src, t, 1) : 0, forced: false };
+        a = { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightSlope(src, t, SW) : 0, forced: false };
         knots.push(a);
       }
       if (failure) break;
@@ -134,12 +141,12 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       if (end.br) {
         const br = end.br;
         const rv = br.right >= 0 ? src.value(br.right, br.time, 0) : src.endValue;
-        let rm = hermite && br.right >= 0 ? src.value(br.right, br.time, 1) : endM;
+        let rm = hermite && br.right >= 0 ? finiteSlope(src, br.right, br.time, 1, src.value(br.right, br.time, 1), SW) : endM;
         if (hermite && br.left === br.right) {
           // a joint inside one segment: one-sided slopes just beside it
           const d = 1e-9 * Math.max(1, Math.abs(br.time));
-          leftKnot.m = src.value(br.left, br.time - d, 1);
-          rm = src.value(br.right, br.time + d, 1);
+          leftKnot.m = finiteSlope(src, br.left, br.time, -1, src.value(br.left, br.time - d, 1), SW);
+          rm = finiteSlope(src, br.right, br.time, 1, src.value(br.right, br.time + d, 1), SW);
         }
         if (br.order === 0 || hermite) knots.push({ stored: end.stored, src: end.src, v: rv, m: rm, forced: true });
         a = knots[knots.length - 1];
@@ -155,10 +162,10 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       VIEW_V[0] = rt(qv, a0.v); VIEW_V[1] = rt(qv, b0.v);
       if (hermite) { VIEW_M[0] = rt(qm!, a0.m); VIEW_M[1] = rt(qm!, b0.m); }
       const m = measureError(src, view, certOpts, a0.stored, b0.stored === Math.fround(B) ? B : b0.stored);
-      if (m.certified > tol) {
+      if (!(m.certified <= tol)) {
         const t = Math.fround(0.5 * (a0.src + b0.src));
         if (!(t > a0.stored && t < b0.stored)) return `curve "${src.name}": cannot prove ${tol.toPrecision(3)} near t = ${a0.src} s`;
-        knots.splice(k + 1, 0, { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightValue(src, t, 1) : 0, forced: false });
+        knots.splice(k + 1, 0, { stored: t, src: t, v: rightValue(src, t, 0), m: hermite ? rightSlope(src, t, SW) : 0, forced: false });
         continue;
       }
       if (m.maxError > worst) { worst = m.maxError; worstAt = m.at; }
@@ -175,10 +182,11 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
     }
     const table = assembleTable(profile, times, stored, values, slopes, qv, qm);
     // the end point itself (the last entry's value against the curve's end value)
-    const endErr = Math.abs(src.endValue - table.values[n - 1]);
+    let endErr = Math.abs(src.endValue - table.values[n - 1]);
+    if (endErr !== endErr) endErr = Infinity; // NaN counts as failure
     if (endErr > worst) { worst = endErr; worstAt = B; }
     if (endErr > cert) cert = endErr;
-    if (cert > tol) return `curve "${src.name}": the end value cannot be stored within ${tol.toPrecision(3)}`;
+    if (!(cert <= tol)) return `curve "${src.name}": the end value cannot be stored within ${tol.toPrecision(3)}`;
     void opts;
     return { table, measure: { maxError: worst, at: worstAt, certified: cert, method: sampled ? 'sampled+bound' : 'exact' } };
   }

@@ -12,6 +12,7 @@ import { aprioriBound } from './bound';
 import { payloadBytes, type Table } from './table';
 import { ENCODING_BYTES } from './encoding';
 import type { Method } from './measure';
+import { verticalTangents } from './slopes';
 
 export interface CurveReport {
   name: string;
@@ -79,10 +80,17 @@ export function bakeCurve(src: BakeSource, profile: Profile, opts: BakeOptions =
     const r = profile.layout === 'uniform'
       ? bakeUniform(src, profile, tol, breaks, opts.frameRate ?? 60)
       : bakeAdaptive(src, profile, tol, breaks);
-    if (typeof r === 'string') return fail(r);
+    if (typeof r === 'string') return fail(withTangents(src, profile, r));
     table = r.table; measure = r.measure;
   } catch (e) {
-    return fail(`curve "${src.name}": ${(e as Error).message}`);
+    return fail(withTangents(src, profile, `curve "${src.name}": ${(e as Error).message}`));
+  }
+  // the guarantee "a reported table is certified within tolerance", checked once more: every decoded
+  // number finite, the certified error a finite number ≤ the tolerance (NaN fails every comparison)
+  const nonFinite = firstNonFinite(table);
+  if (nonFinite) return fail(withTangents(src, profile, `curve "${src.name}": the table would hold a non-finite ${nonFinite}; not emitted`));
+  if (!(measure.certified <= tol) || !Number.isFinite(measure.maxError)) {
+    return fail(withTangents(src, profile, `curve "${src.name}": the table's error could not be certified within ${tol.toPrecision(3)} (certified ${measure.certified})`));
   }
   const epsV = roundOffBound(table, 'values');
   const epsM = roundOffBound(table, 'slopes');
@@ -94,6 +102,24 @@ export function bakeCurve(src: BakeSource, profile: Profile, opts: BakeOptions =
     withinCap: profile.byteCap === undefined ? null : bytes <= profile.byteCap, sourceKeys: S.length,
   };
   return { ok: true, name: src.name, profile: profile.name, table, report };
+}
+
+/** The first non-finite decoded number of a table, named ("slope 3 (-Infinity)"), or null. */
+export function firstNonFinite(table: Table): string | null {
+  const check = (xs: ArrayLike<number> | null, what: string): string | null => {
+    if (!xs) return null;
+    for (let k = 0; k < xs.length; k++) if (!Number.isFinite(xs[k])) return `${what} ${k} (${xs[k]})`;
+    return null;
+  };
+  return check(table.times, 'time') ?? check(table.values, 'value') ?? (table.kernel === 'hermite' ? check(table.slopes, 'slope') : null);
+}
+
+/** A failure message, with the source's vertical tangents named for hermite tables (their slopes are replaced there). */
+function withTangents(src: BakeSource, profile: Profile, message: string): string {
+  if (profile.kernel !== 'hermite') return message;
+  const vt = verticalTangents(src);
+  if (!vt.length) return message;
+  return `${message}; the source has a vertical tangent (infinite slope) at t = ${vt.map((t) => `${t} s`).join(', ')}`;
 }
 
 /**

@@ -70,7 +70,7 @@ export function aprioriBound(
     const M = derivativeBound(src, boundOrder(kernel), a0, a1);
     if (!Number.isFinite(M)) return null;
     const e = interpolationBound(kernel, M, h) + epsV + (kernel === 'hermite' ? (h * epsM) / 4 : 0);
-    if (e > worst) worst = e;
+    if (!(e <= worst)) worst = e; // NaN counts as +Infinity
   }
-  return worst;
+  return Number.isFinite(worst) ? worst : null;
 }

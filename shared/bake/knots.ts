@@ -4,6 +4,7 @@ import { segmentAt } from './source';
 import type { Profile } from './profile';
 import { encodeArray, minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Table } from './table';
+import { finiteSlope } from './slopes';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -34,6 +35,22 @@ export function leftValue(src: BakeSource, t: number, order: number): number {
 export function rightValue(src: BakeSource, t: number, order: number): number {
   const i = segmentAt_(src, t);
   return src.value(i, Math.min(Math.max(t, src.times[i]), src.times[i + 1]), order);
+}
+
+/** leftValue(src, t, 1) made finite (./slopes.ts finiteSlope: the secant over w at a vertical tangent). */
+export function leftSlope(src: BakeSource, t: number, w: number): number {
+  const i = segmentLeftOf(src, t);
+  const S = src.times;
+  const u = Math.min(Math.max(t, S[i]), S[i + 1]);
+  return finiteSlope(src, i, u, u <= S[i] ? 1 : -1, src.value(i, u, 1), w);
+}
+
+/** rightValue(src, t, 1) made finite (as leftSlope). */
+export function rightSlope(src: BakeSource, t: number, w: number): number {
+  const i = segmentAt_(src, t);
+  const S = src.times;
+  const u = Math.min(Math.max(t, S[i]), S[i + 1]);
+  return finiteSlope(src, i, u, u >= S[i + 1] ? -1 : 1, src.value(i, u, 1), w);
 }
 
 /** Build a decoded table from exact knot data; quantizers default to the data's own min/max. */

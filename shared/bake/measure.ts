@@ -99,10 +99,21 @@ let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
 let splitBudget = 0;
 
-function record(err: number, at: number, cert: number): void {
+/**
+ * Fold one piece's figures in. A NaN error (a non-finite table or source number) counts as +Infinity:
+ * `NaN > x` is false, so without this a NaN piece would count as 0 and the table would pass.
+ */
+export function record(err: number, at: number, cert: number): void {
+  if (err !== err) err = Infinity;
+  if (cert !== cert) cert = Infinity;
   if (err > bestErr) { bestErr = err; bestAt = at; }
   if (cert > certified) certified = cert;
 }
+
+/** The figures record() has folded in since the last reset (for tests of the NaN rule). */
+export function recorded(): { maxError: number; certified: number } { return { maxError: bestErr, certified }; }
+/** Reset the figures record() folds into (measureError does this itself). */
+export function resetRecord(): void { bestErr = 0; bestAt = 0; certified = 0; }
 
 /** Exact piece: source cubic of segment i minus table cubic (TAB already at origin x0). */
 function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
@@ -123,7 +134,8 @@ let hT0 = Number.NaN, hS0 = -2, hV0 = 0, hT1 = Number.NaN, hS1 = -2, hV1 = 0;
 /** |f − p| at t (TAB holds the table cubic about `origin`). */
 function gAt(src: BakeSource, i: number, t: number, origin: number): number {
   const f = t === hT0 && i === hS0 ? hV0 : t === hT1 && i === hS1 ? hV1 : src.value(i, t, 0);
-  return Math.abs(f - cubicAt_(TAB, t - origin));
+  const e = Math.abs(f - cubicAt_(TAB, t - origin));
+  return e === e ? e : Infinity; // NaN counts as failure
 }
 
 /** max |p''| and max |p'| of the table cubic on [x0, x1] (linear in u for p''; p' bounded by |c1| + 2|c2|u + 3|c3|u²). */

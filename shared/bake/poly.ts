@@ -53,9 +53,12 @@ export const MAX_SLOT = new Float64Array(2);
  * function's extreme on a closed interval is at an end or at a critical point, and the critical
  * points of a cubic are the roots of p'(u) = c1 + 2c2·u + 3c3·u². The quadratic is solved with the
  * cancellation-free form q = −(b + sign(b)·√(b² − 4ac))/2, roots q/a and c/q (Press et al.,
- * Numerical Recipes §5.6, from memory). Writes [max, argmax] to MAX_SLOT and returns the max.
+ * Numerical Recipes §5.6, from memory). Writes [max, argmax] to MAX_SLOT and returns the max;
+ * +Infinity when a coefficient is not finite (NaN counts as failure).
  */
 export function maxAbsCubic(c: Float64Array, L: number): number {
+  // a non-finite coefficient (a table slope of ±Infinity, NaN) makes the error unknown: +Infinity, never NaN
+  if (!Number.isFinite(c[0] + c[1] + c[2] + c[3])) { MAX_SLOT[0] = Infinity; MAX_SLOT[1] = 0; return Infinity; }
   let best = Math.abs(c[0]);
   let at = 0;
   const end = Math.abs(cubicAt(c, L));

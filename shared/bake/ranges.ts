@@ -49,7 +49,12 @@ export function sourceRange(src: BakeSource, order: 0 | 1): Range {
       }
       void cubicAt;
     } else {
-      for (let j = 0; j <= SAMPLES; j++) consider(r, src.value(i, j === SAMPLES ? b : a + (j * L) / SAMPLES, order));
+      // a non-finite sample (a vertical tangent's slope) is left out: entries take a finite slope
+      // there (./slopes.ts) and the encoding clamps a slope outside the range; the measure decides
+      for (let j = 0; j <= SAMPLES; j++) {
+        const x = src.value(i, j === SAMPLES ? b : a + (j * L) / SAMPLES, order);
+        if (Number.isFinite(x)) consider(r, x);
+      }
     }
   }
   if (order === 0) consider(r, src.endValue);

@@ -25,12 +25,14 @@ import type { Profile } from './profile';
 import type { Break } from './breaks';
 import { makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
 import type { Table } from './table';
+import { finiteSlope, mayReplace } from './slopes';
 
 const firstNonEmpty_ = firstNonEmpty;
 const makeQuantizer_ = makeQuantizer;
 const encodeOne_ = encodeOne;
 const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
+const finiteSlope_ = finiteSlope;
 
 /** Reference pieces per non-empty segment (brackets of the values and slopes for the min/max search). */
 const PIECES = 24;
@@ -55,12 +57,20 @@ export function entryValue(src: BakeSource, t: number, seg: number): number {
 /**
  * Entry slope at t: the mean of the one-sided slopes when `br` is a break exactly at t (with a right
  * segment), else the segment's slope (0 outside [S₀, S_N)); the last entry takes the last segment's slope.
+ * Each slope is made finite by ./slopes.ts finiteSlope (secant over ⅛ grid step at a vertical tangent).
  */
-export function entrySlope(src: BakeSource, t: number, seg: number, br: Break | null, last: boolean, lastSegment: number): number {
+export function entrySlope(src: BakeSource, t: number, seg: number, br: Break | null, last: boolean, lastSegment: number, step: number): number {
   const S = src.times;
-  if (last) return src.value(lastSegment, Math.min(t, S[S.length - 1]), 1);
-  if (br) return 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1));
-  return seg >= 0 ? src.value(seg, t, 1) : 0;
+  // secant over ⅛ of the grid step: for f ≈ c·√u (circ, a bezier handle with dx/ds = 0) the Hermite
+  // interval [0, H] with m0 = c/√(H/8) ≈ 2.8·(secant over H) is within a few % of the best m0 (max error
+  // ≈ 0.105·c·√H against 0.23·c·√H with the plain secant; measured by dense sampling, .tmp script)
+  const w = 0.125 * step;
+  if (last) {
+    const te = Math.min(t, S[S.length - 1]);
+    return finiteSlope_(src, lastSegment, te, -1, src.value(lastSegment, te, 1), w);
+  }
+  if (br) return 0.5 * (finiteSlope_(src, br.left, t, -1, src.value(br.left, t, 1), w) + finiteSlope_(src, br.right, t, 1, src.value(br.right, t, 1), w));
+  return seg >= 0 ? finiteSlope_(src, seg, t, 1, src.value(seg, t, 1), w) : 0;
 }
 
 /** decodeOne(q, encodeOne(q, x)) for xs[from..to) into out (the same arithmetic as encodeArray). */
@@ -99,6 +109,9 @@ function bracket(src: BakeSource, i: number, a: number, b: number, order: 0 | 1,
   const l = mid - half - marg, h = mid + half + marg;
   lo[j] = l === l && Number.isFinite(M) ? l : -Infinity;
   hi[j] = h === h && Number.isFinite(M) ? h : Infinity;
+  // slopes: where an entry's slope may be replaced by a secant (./slopes.ts) the bracket of f' says
+  // nothing about it, so the piece is always visited
+  if (order === 1 && mayReplace(src, i, Math.max(Math.abs(lo[j]), Math.abs(hi[j])))) { lo[j] = -Infinity; hi[j] = Infinity; }
 }
 
 function makePieces(src: BakeSource, hermite: boolean): Pieces {
@@ -230,7 +243,7 @@ export class LazyTrials {
     const slps = (k: number): void => {
       if (HAVE[k] & 2) return;
       HAVE[k] |= 2;
-      XM[k] = entrySlope(src, T[k], segOf(k), brkOf(k), k === n - 1, this.lastSegment);
+      XM[k] = entrySlope(src, T[k], segOf(k), brkOf(k), k === n - 1, this.lastSegment, h);
     };
     let qv: Quantizer, qm: Quantizer | null = null;
     const e = this.profile.encoding;

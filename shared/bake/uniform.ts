@@ -14,7 +14,8 @@
  * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed,
  *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
- * one-sided slopes where an entry lands exactly on a slope break).
+ * one-sided slopes where an entry lands exactly on a slope break); where that derivative is not finite
+ * (a vertical tangent) the secant over ⅛ grid step into the segment (./slopes.ts finiteSlope).
  */
 import type { BakeSource } from './source';
 import { firstNonEmpty } from './source';
@@ -26,7 +27,7 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { LazyTrials } from './uniform-trial';
+import { LazyTrials, entrySlope } from './uniform-trial';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -39,6 +40,7 @@ const makeQuantizer_ = makeQuantizer;
 const encodeOne_ = encodeOne;
 const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
+const entrySlope_ = entrySlope;
 
 export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
@@ -83,6 +85,9 @@ function uniformData(src: BakeSource, times: Float64Array, values: Float64Array,
   const S0 = S[0], SN = S[ns];
   let i = 0;
   let b = 0;
+  // the grid step (entrySlope takes a vertical tangent's secant over ⅛ of it: ./slopes.ts)
+  const w = (times[n - 1] - times[0]) / (n - 1);
+  const ls = lastSeg(src);
   for (let k = 0; k < n; k++) {
     const t = times[k];
     let seg = -1;
@@ -97,8 +102,7 @@ function uniformData(src: BakeSource, times: Float64Array, values: Float64Array,
     if (slopes) {
       while (b < breaks.length && breaks[b].time < t) b++;
       const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
-      slopes[k] = br ? 0.5 * (src.value(br.left, t, 1) + src.value(br.right, t, 1)) : seg >= 0 ? src.value(seg, t, 1) : 0;
-      if (k === n - 1) slopes[k] = src.value(lastSeg(src), Math.min(t, SN), 1);
+      slopes[k] = entrySlope_(src, t, seg, br, k === n - 1, ls, w);
     }
   }
 }
