@@ -2,7 +2,7 @@
  * The canvas's drawing layers: thin memoised components over the renderer functions
  * (./grid.ts, ./curve-path.ts, ./transform.ts). Each re-renders only when its own inputs change.
  */
-import { memo, useMemo } from 'react';
+import { memo, useMemo, useRef } from 'react';
 import type { PreparedCurve } from '../../../../shared/curve';
 import { bandPath, domainPath, outsidePaths } from './curve-path';
 import { keyName } from './format';
@@ -96,17 +96,28 @@ export const KeysLayer = memo(function KeysLayer({ keys, tf, selection, unit, on
   keys: readonly KeyView[]; tf: Transform; selection: readonly number[]; unit: string; onFocusKey: (i: number) => void;
 }) {
   const sel = useMemo(() => new Set(selection), [selection]);
+  // accessible names kept per key index and rebuilt only for keys whose time or value changed: a drag
+  // moves a few keys of many, and formatting every name on every move was most of this layer's work
+  const names = useRef<{ time: number; value: number; unit: string; name: string }[]>([]);
+  const nameOf = (k: KeyView): string => {
+    const c = names.current[k.i];
+    if (c && c.time === k.time && c.value === k.value && c.unit === unit) return c.name;
+    const name = keyName(k.i, k.time, k.value, unit);
+    names.current[k.i] = { time: k.time, value: k.value, unit, name };
+    return name;
+  };
   const { t0, t1, v0, v1 } = tf.view;
   const mt = (t1 - t0) * 0.02, mv = (v1 - v0) * 0.02;
   // every key stays in the document (and in the Tab order) up to CULL_ABOVE keys; past that, keys
   // far outside the view are not drawn, except selected ones
   const cull = keys.length > CULL_ABOVE;
+  if (names.current.length > keys.length) names.current.length = keys.length;
   return (
     <g aria-label="Keys" role="group">
       {keys.map((k) =>
         !cull || sel.has(k.i) || (k.time >= t0 - mt && k.time <= t1 + mt && k.value >= v0 - mv && k.value <= v1 + mv) ? (
           <KeyDot key={k.i} i={k.i} x={toX(tf, k.time)} y={toY(tf, k.value)} selected={sel.has(k.i)}
-            name={keyName(k.i, k.time, k.value, unit)} onFocusKey={onFocusKey} />
+            name={nameOf(k)} onFocusKey={onFocusKey} />
         ) : null,
       )}
     </g>

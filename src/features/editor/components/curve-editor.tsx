@@ -3,11 +3,11 @@
  * the motion preview at its right end, the key card floating next to the selected key.
  * The document comes from an EditorDocumentSource and is saved back to it (debounced, never mid-drag).
  */
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useEffect, useMemo, useRef, useState } from 'react';
 import type { Profile } from '../../../../shared/bake';
 import type { CurveDocument } from '../../../../shared/curve';
 import { CurveCanvas, type OverlayData } from '../canvas/curve-canvas';
-import { toX, toY } from '../canvas/transform';
+import { toX, toY, type Transform } from '../canvas/transform';
 import { commandForKey } from '../commands/commands';
 import { KeyCard } from '../key-card/key-card';
 import { MotionPreview } from '../motion-preview/motion-preview';
@@ -147,6 +147,32 @@ function AutosavePanel({ source, initialVersion }: { source: EditorDocumentSourc
   );
 }
 
+/** The key card beside the primary key (a component: it reads the primary key from the store itself). */
+function KeyCardSlot({ tf, width }: { tf: Transform; width: number }) {
+  const primary = useEditor((s) => s.primary);
+  const k = useEditor((s) => (s.primary !== null && s.primary < s.doc.keys.length ? s.doc.keys[s.primary] : null));
+  if (primary === null || !k) return null;
+  const x = toX(tf, k.time), y = toY(tf, k.value);
+  if (x < tf.plot.x - 10 || x > tf.plot.x + tf.plot.w + 10) return null;
+  // beside the key, past its handles: right if there is room, else left; below a key in the upper
+  // half of the plot and above one in the lower half, so the card never covers the key or its handles
+  const left = x + CARD_GAP + CARD_W < width ? x + CARD_GAP : Math.max(0, x - CARD_GAP - CARD_W);
+  const upper = y < tf.plot.y + tf.plot.h / 2;
+  // above a key the card may not reach past the canvas top (it scrolls inside instead)
+  const pos = upper ? { left, top: Math.max(0, y + 16) } : { left, bottom: Math.max(0, tf.plot.y + tf.plot.h + 30 - y + 16), maxHeight: Math.max(160, y - 16) };
+  return <KeyCard position={pos} />;
+}
+
+// the parts under the body take no props that change in a drag: memoised, a bake landing mid-drag
+// re-renders the body without re-rendering them (each subscribes to the store for what it shows)
+const ToolbarPart = memo(Toolbar);
+const CanvasPart = memo(CurveCanvas);
+const TargetStripPart = memo(TargetStrip);
+const MotionPreviewPart = memo(MotionPreview);
+const HelpSheetPart = memo(HelpSheet);
+
+const placeKeyCard = (tf: Transform, width: number) => <KeyCardSlot tf={tf} width={width} />;
+
 /** How a library curve is saved: explicitly, with drafts; `baseline` is the stored document. */
 export interface ExplicitSaving {
   drafts: CurveDrafts;
@@ -159,8 +185,9 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion, e
   const api = useEditorApi();
   const root = useRef<HTMLDivElement>(null);
   useShortcuts(api, root);
-  const doc = useEditor((s) => s.doc);
-  const primary = useEditor((s) => s.primary);
+  // the body subscribes only to what it shows itself (a key drag changes the document on every move;
+  // the canvas, the key card, the strip and the preview subscribe on their own)
+  const docName = useEditor((s) => s.doc.name);
   const overlayName = useEditor((s) => s.overlay);
   const results = useStore(runner.store, (s) => s.results);
   const overlay: OverlayData | null = useMemo(() => {
@@ -171,7 +198,7 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion, e
     <div ref={root} className="grid gap-3" data-testid="curve-editor">
       <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
         <h1 className="text-xl font-semibold tracking-tight">
-          {source.label}: <span className="font-mono text-lg">{doc.name}</span>
+          {source.label}: <span className="font-mono text-lg">{docName}</span>
         </h1>
         <p className="text-sm text-ink/70 dark:text-paper/70">{source.description}</p>
         {readOnly ? (
@@ -182,28 +209,14 @@ function EditorBody({ source, runner, profiles, profilesLabel, initialVersion, e
       {explicit && !readOnly && initialVersion !== null && (
         <LibrarySavePanel api={api} source={source} drafts={explicit.drafts} initialRevision={initialVersion} baseline={explicit.baseline} />
       )}
-      <Toolbar />
+      <ToolbarPart />
       <ImportExportPanel profiles={profiles} />
-      <CurveCanvas overlay={overlay}>
-        {(tf, width) => {
-          if (primary === null || primary >= doc.keys.length) return null;
-          const k = doc.keys[primary];
-          const x = toX(tf, k.time), y = toY(tf, k.value);
-          if (x < tf.plot.x - 10 || x > tf.plot.x + tf.plot.w + 10) return null;
-          // beside the key, past its handles: right if there is room, else left; below a key in the upper
-          // half of the plot and above one in the lower half, so the card never covers the key or its handles
-          const left = x + CARD_GAP + CARD_W < width ? x + CARD_GAP : Math.max(0, x - CARD_GAP - CARD_W);
-          const upper = y < tf.plot.y + tf.plot.h / 2;
-          // above a key the card may not reach past the canvas top (it scrolls inside instead)
-          const pos = upper ? { left, top: Math.max(0, y + 16) } : { left, bottom: Math.max(0, tf.plot.y + tf.plot.h + 30 - y + 16), maxHeight: Math.max(160, y - 16) };
-          return <KeyCard position={pos} />;
-        }}
-      </CurveCanvas>
+      <CanvasPart overlay={overlay}>{placeKeyCard}</CanvasPart>
       <div className="flex flex-col gap-3 lg:flex-row lg:items-start">
-        <TargetStrip runner={runner} profiles={profiles} profilesLabel={profilesLabel} />
-        <MotionPreview />
+        <TargetStripPart runner={runner} profiles={profiles} profilesLabel={profilesLabel} />
+        <MotionPreviewPart />
       </div>
-      <HelpSheet />
+      <HelpSheetPart />
     </div>
   );
 }

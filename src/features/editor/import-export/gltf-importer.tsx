@@ -25,7 +25,8 @@ function bytesOf(file: Blob): Promise<Uint8Array> {
 }
 
 export function GltfImporter() {
-  const doc = useEditor((s) => s.doc);
+  // the document is read when Fit runs; only the unit is shown (a key drag does not re-render this)
+  const unit = useEditor((s) => s.doc.units.value);
   const api = useEditorApi();
   const [read, setRead] = useState<GltfChannelsResult | null>(null);
   const [channel, setChannel] = useState(0);
@@ -38,7 +39,7 @@ export function GltfImporter() {
     const t = parseTolerance(tol);
     const comp = ch?.components[component];
     if (!comp) return;
-    setResult(t.ok ? importGltfComponent(comp, t.value, doc) : { ok: false, error: t.error });
+    setResult(t.ok ? importGltfComponent(comp, t.value, api.getState().doc) : { ok: false, error: t.error });
   };
   const use = (next: GltfComponentImport & { ok: true }) => {
     const s = api.getState();
@@ -70,7 +71,7 @@ export function GltfImporter() {
             </select></label>
           )}
           <label className="text-xs">tolerance <input aria-label="glTF tolerance" value={tol} className={`${field} w-24 font-mono`}
-            onChange={(e) => { setTol(e.target.value); setResult(null); }} /> {doc.units.value}</label>
+            onChange={(e) => { setTol(e.target.value); setResult(null); }} /> {unit}</label>
           <button type="button" className={button} onClick={reduce}>Reduce keys</button>
         </div>
       )}
@@ -78,7 +79,7 @@ export function GltfImporter() {
       {result && !result.ok && <p role="alert" className="text-xs text-brick">{result.error}</p>}
       {result?.ok && (
         <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="gltf-fit">
-          <span className="font-mono">{result.keysBefore} keys → {result.keysAfter} keys · max error {result.reduced ? sci(result.maxError) : '0'} {doc.units.value} (tolerance {sci(result.tolerance)})</span>
+          <span className="font-mono">{result.keysBefore} keys → {result.keysAfter} keys · max error {result.reduced ? sci(result.maxError) : '0'} {unit} (tolerance {sci(result.tolerance)})</span>
           <span>{result.reduced ? `within tolerance${result.note !== 'reduced' ? ` · ${result.note}` : ''}` : result.note}</span>
           <button type="button" className={button} onClick={() => use(result)}>Use this channel</button>
         </div>

@@ -5,7 +5,7 @@
  * and downloads of the curve in every output format of the baker for one target profile. Imports
  * are one undoable edit each. A read-only editor only exports.
  */
-import { useState } from 'react';
+import { memo, useState } from 'react';
 import type { Profile } from '../../../../shared/bake';
 import type { CurveDocument } from '../../../../shared/curve';
 import { useEditor, useEditorApi } from '../store/editor-context';
@@ -28,15 +28,18 @@ function useReplace() {
   };
 }
 
+// the importers read the document only when a button runs (api.getState()) and subscribe to the value
+// unit they show, so a key drag does not re-render them
 function SamplesImporter() {
-  const doc = useEditor((s) => s.doc);
+  const api = useEditorApi();
+  const unit = useEditor((s) => s.doc.units.value);
   const replace = useReplace();
   const [text, setText] = useState('');
   const [tol, setTol] = useState('0.001');
   const [result, setResult] = useState<SamplesImport | null>(null);
   const fit = () => {
     const t = parseTolerance(tol);
-    setResult(t.ok ? importSamples(text, t.value, doc) : { ok: false, error: t.error });
+    setResult(t.ok ? importSamples(text, t.value, api.getState().doc) : { ok: false, error: t.error });
   };
   return (
     <fieldset className="grid gap-1.5 rounded-sm border border-grid-minor p-2 dark:border-night-line">
@@ -46,13 +49,13 @@ function SamplesImporter() {
       <textarea aria-label="Samples" value={text} onChange={(e) => { setText(e.target.value); setResult(null); }} rows={4}
         placeholder={'time,value\n0,0\n0.1,0.3\n…'} className={`${field} font-mono text-xs`} />
       <div className="flex flex-wrap items-center gap-2">
-        <label className="text-xs">tolerance <input aria-label="Fit tolerance" value={tol} onChange={(e) => { setTol(e.target.value); setResult(null); }} className={`${field} w-24 font-mono`} /> {doc.units.value}</label>
+        <label className="text-xs">tolerance <input aria-label="Fit tolerance" value={tol} onChange={(e) => { setTol(e.target.value); setResult(null); }} className={`${field} w-24 font-mono`} /> {unit}</label>
         <button type="button" className={button} disabled={!text.trim()} onClick={fit}>Fit keys</button>
       </div>
       {result && !result.ok && <p role="alert" className="text-xs text-brick">{result.error}</p>}
       {result?.ok && (
         <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="samples-fit">
-          <span className="font-mono">{result.samples} samples → {result.keys} keys · max error {sci(result.maxError)} {doc.units.value} (tolerance {sci(result.tolerance)})</span>
+          <span className="font-mono">{result.samples} samples → {result.keys} keys · max error {sci(result.maxError)} {unit} (tolerance {sci(result.tolerance)})</span>
           <span className={result.withinTolerance ? 'text-moss' : 'text-brick'}>{result.withinTolerance ? 'within tolerance' : 'over tolerance'}</span>
           <button type="button" className={button} onClick={() => replace(result.doc)}>Use these keys</button>
         </div>
@@ -62,7 +65,7 @@ function SamplesImporter() {
 }
 
 function CssImporter() {
-  const doc = useEditor((s) => s.doc);
+  const api = useEditorApi();
   const replace = useReplace();
   const [text, setText] = useState('');
   const [error, setError] = useState<string | null>(null);
@@ -73,7 +76,7 @@ function CssImporter() {
         <input aria-label="CSS easing" value={text} onChange={(e) => { setText(e.target.value); setError(null); }} placeholder="cubic-bezier(0.25, 0.1, 0.25, 1)"
           className={`${field} min-w-72 font-mono text-xs`} />
         <button type="button" className={button} disabled={!text.trim()} onClick={() => {
-          const r = importCssEasing(text, doc);
+          const r = importCssEasing(text, api.getState().doc);
           if (r.ok) { replace(r.doc); setError(null); } else setError(r.error);
         }}>Use this easing</button>
       </div>
@@ -95,7 +98,7 @@ function download(filename: string, mime: string, data: string | Uint8Array) {
 }
 
 function Exporter({ profiles }: { profiles: readonly Profile[] }) {
-  const doc = useEditor((s) => s.doc);
+  const api = useEditorApi();
   const [name, setName] = useState(profiles[0]?.name ?? '');
   const [format, setFormat] = useState<ExportFormat>('json');
   const [note, setNote] = useState<{ ok: boolean; text: string } | null>(null);
@@ -112,6 +115,7 @@ function Exporter({ profiles }: { profiles: readonly Profile[] }) {
         </select></label>
         <button type="button" className={button} disabled={!profile} onClick={() => {
           if (!profile) return;
+          const doc = api.getState().doc;
           const r = exportCurve(doc, profile, format);
           if (!r.ok) { setNote({ ok: false, text: r.error }); return; }
           download(r.filename, r.mime, r.data);
@@ -123,7 +127,7 @@ function Exporter({ profiles }: { profiles: readonly Profile[] }) {
   );
 }
 
-export function ImportExportPanel({ profiles }: { profiles: readonly Profile[] }) {
+export const ImportExportPanel = memo(function ImportExportPanel({ profiles }: { profiles: readonly Profile[] }) {
   const readOnly = useEditor((s) => s.readOnly);
   return (
     <details className="rounded-md border border-grid-major bg-card/60 px-2 py-1 dark:border-night-line dark:bg-night-card/60">
@@ -136,4 +140,4 @@ export function ImportExportPanel({ profiles }: { profiles: readonly Profile[] }
       </div>
     </details>
   );
-}
+});

@@ -31,16 +31,18 @@ function NumberField({ label, unit, value, error, onCommit, testId }: {
   label: string; unit?: string; value: number; error?: string; onCommit: (text: string) => void; testId: string;
 }) {
   const id = useId();
-  const [text, setText] = useState(short(value));
+  // the typed text while the field is being edited or holds a rejected value; otherwise the value itself
+  // (derived in render, not copied by an effect: a drag updates the card in one render per move, not two)
+  const [typed, setText] = useState(short(value));
   const [editing, setEditing] = useState(false);
-  useEffect(() => { if (!editing && !error) setText(short(value)); }, [value, editing, error]);
+  const text = editing || error ? typed : short(value);
   return (
     <div className="min-w-0">
       <label htmlFor={id} className="block text-[11px] text-ink/70 dark:text-paper/70">{label}</label>
       <div>
         <div className="flex items-center gap-1">
           <input id={id} data-testid={testId} inputMode="decimal" value={text} aria-invalid={!!error} aria-describedby={error ? `${id}-err` : undefined}
-            onFocus={() => setEditing(true)}
+            onFocus={() => { if (!error) setText(short(value)); setEditing(true); }}
             onChange={(e) => setText(e.target.value)}
             onBlur={() => { setEditing(false); if (text !== short(value)) onCommit(text); }}
             onKeyDown={(e) => {
