@@ -2,6 +2,8 @@
  * The stable problem codes of /api/v1 (server/api-v1/problem.ts). Each has an anchor: a problem
  * detail's `type` is this page's URL with #problem-<code>.
  */
+import { TableHead } from '../../../components/table-head';
+
 const CODES: { code: string; status: number; meaning: string }[] = [
   { code: 'unauthenticated', status: 401, meaning: 'No token or session, or the token is malformed, unknown or revoked.' },
   { code: 'forbidden', status: 403, meaning: 'Your role in the team does not allow this.' },
@@ -17,13 +19,7 @@ const CODES: { code: string; status: number; meaning: string }[] = [
 export function ProblemCodes() {
   return (
     <table className="w-full text-left text-sm">
-      <thead className="border-b border-grid-major text-xs uppercase tracking-wide text-ink/60 dark:border-night-line dark:text-paper/60">
-        <tr>
-          <th className="py-2 pr-3 font-medium">code</th>
-          <th className="py-2 pr-3 font-medium">status</th>
-          <th className="py-2 font-medium">meaning</th>
-        </tr>
-      </thead>
+      <TableHead columns={['code', 'status', 'meaning']} />
       <tbody className="divide-y divide-grid-minor dark:divide-night-line">
         {CODES.map((c) => (
           <tr key={c.code} id={`problem-${c.code}`} className="target:bg-amber/10">

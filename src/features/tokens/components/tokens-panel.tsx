@@ -5,6 +5,7 @@ import { FormAlert, TextField, dangerButton, primaryButton, secondaryButton } fr
 import { useTokens } from '../api/list-tokens';
 import { useCreateToken } from '../api/create-token';
 import { useRevokeToken } from '../api/revoke-token';
+import { TableHead } from '../../../components/table-head';
 
 const when = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) + ' UTC' : '—');
 
@@ -59,15 +60,7 @@ export function TokensPanel({ teamId }: { teamId: string }) {
       ) : null}
       {tokens.isError ? <FormAlert message={formMessage(tokens.error)} /> : null}
       <table className="w-full text-left text-sm">
-        <thead className="border-b border-grid-major text-xs uppercase tracking-wide text-ink/60 dark:border-night-line dark:text-paper/60">
-          <tr>
-            <th className="py-2 pr-3 font-medium">Name</th>
-            <th className="py-2 pr-3 font-medium">Packs</th>
-            <th className="py-2 pr-3 font-medium">Created</th>
-            <th className="py-2 pr-3 font-medium">Last used</th>
-            <th className="py-2 font-medium">State</th>
-          </tr>
-        </thead>
+        <TableHead columns={['Name', 'Packs', 'Created', 'Last used', 'State']} />
         <tbody className="divide-y divide-grid-minor dark:divide-night-line">
           {(tokens.data ?? []).map((t) => (
             <tr key={t.id} data-testid={`token-${t.name}`}>

@@ -4,6 +4,7 @@ import { formMessage } from '../../../lib/form-errors';
 import { useDeliveries } from '../api/list-deliveries';
 import { useRedeliver } from '../api/redeliver';
 import { DeliveryState } from './delivery-state';
+import { TableHead } from '../../../components/table-head';
 
 const PER_PAGE = 10;
 const when = (iso: string) => iso.replace('T', ' ').slice(0, 19) + ' UTC';
@@ -22,17 +23,7 @@ export function DeliveriesTable({ teamId, webhookId, label }: { teamId: string; 
       <FormAlert message={redeliver.isError ? formMessage(redeliver.error) : null} />
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
-          <thead className="border-b border-grid-major text-xs uppercase tracking-wide text-ink/60 dark:border-night-line dark:text-paper/60">
-            <tr>
-              <th className="py-2 pr-3 font-medium">Event</th>
-              <th className="py-2 pr-3 font-medium">State</th>
-              <th className="py-2 pr-3 font-medium">Status</th>
-              <th className="py-2 pr-3 font-medium">Response</th>
-              <th className="py-2 pr-3 font-medium">Attempts</th>
-              <th className="py-2 pr-3 font-medium">Time</th>
-              <th className="py-2 font-medium"><span className="sr-only">Actions</span></th>
-            </tr>
-          </thead>
+          <TableHead columns={['Event', 'State', 'Status', 'Response', 'Attempts', 'Time', { label: 'Actions', hidden: true }]} />
           <tbody className="divide-y divide-grid-minor dark:divide-night-line">
             {(list.data?.deliveries ?? []).map((d) => (
               <tr key={d.id} data-testid={`delivery-${d.id}`}>

@@ -12,6 +12,7 @@ import { DeliveriesTable } from './deliveries-table';
 import { DeliveryState } from './delivery-state';
 import { SecretNotice } from './secret-notice';
 import { WebhookForm } from './webhook-form';
+import { TableHead } from '../../../components/table-head';
 
 const when = (iso: string) => iso.replace('T', ' ').slice(0, 16) + ' UTC';
 
@@ -44,15 +45,7 @@ export function WebhooksPanel({ teamId }: { teamId: string }) {
       ) : null}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm">
-          <thead className="border-b border-grid-major text-xs uppercase tracking-wide text-ink/60 dark:border-night-line dark:text-paper/60">
-            <tr>
-              <th className="py-2 pr-3 font-medium">Receiver</th>
-              <th className="py-2 pr-3 font-medium">Events</th>
-              <th className="py-2 pr-3 font-medium">State</th>
-              <th className="py-2 pr-3 font-medium">Last delivery</th>
-              <th className="py-2 font-medium"><span className="sr-only">Actions</span></th>
-            </tr>
-          </thead>
+          <TableHead columns={['Receiver', 'Events', 'State', 'Last delivery', { label: 'Actions', hidden: true }]} />
           <tbody className="divide-y divide-grid-minor dark:divide-night-line">
             {hooks.map((w) => {
               const label = w.description || w.url;
