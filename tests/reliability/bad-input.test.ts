@@ -24,7 +24,7 @@ import { testApp } from '../support/app';
 import { ORIGIN, createPerson, signIn, teamId, uniqueEmail } from '../support/accounts';
 import { listRoutes } from '../support/route-walk';
 import { tableCounts } from './support/table-counts';
-import { anyJson, deepJson, hugeStrings, junkParam, junkQuery, notJson, oneFieldWrong, percentEncode, pollutedJson, AWKWARD_STRINGS } from './support/bad-values';
+import { anyJson, deepJson, getAt as getAtPath, hugeStrings, junkParam, junkQuery, notJson, oneFieldWrong, percentEncode, pollutedJson, AWKWARD_STRINGS, NAN_LIKE } from './support/bad-values';
 import { passwordChangeSchema, profileSchema, resetCompleteSchema, resetRequestSchema, signInSchema, acceptInvitationSchema, inviteSchema, memberRoleSchema, createTokenSchema } from '../../shared/schemas/accounts';
 import { curveCreateSchema, curveReorderSchema, curveReplaceSchema, curveTransferSchema, packCreateSchema, packUpdateSchema } from '../../shared/schemas/packs';
 import { proposeVersionSchema, reviewSchema } from '../../shared/schemas/versions';
@@ -39,6 +39,12 @@ import { createProfile } from '../../server/profiles/profiles.service';
 import { createCurve, createPack } from '../../server/packs/packs.service';
 import { proposeVersion } from '../../server/versions/versions.service';
 import { DEMO_PACKS } from '../../server/seed/demo-packs';
+import { createWebhookSchema, updateWebhookSchema } from '../../shared/schemas/webhooks';
+import { commentSchema } from '../../shared/schemas/comments';
+import { markReadSchema } from '../../shared/schemas/notifications';
+import { PROBLEM_MEDIA_TYPE } from '../../shared/schemas/api-v1';
+import { createWebhook } from '../../server/webhooks/webhooks.service';
+import { almostCurveFile, badTolerance, brokenCsvFile, brokenGlbFile, randomBytesFile, type BadFile } from './support/upload-files';
 
 const SEED = 20_261_202;
 const RUNS = 25;
@@ -54,6 +60,8 @@ interface Spec {
 
 const ok = (schema: z.ZodType) => (b: unknown) => schema.safeParse(b).success;
 const doc = (name = 'bad-input-curve') => ({ ...structuredClone(DEMO_PACKS[0]!.curves[0]!), name });
+const webhook = () => ({ url: 'https://builds.corvid-lantern.test/hooks/tangentry', events: ['version.approved', 'channel.moved'], description: 'fuzz hook' });
+const comment = () => ({ body: 'The overshoot reads late on handheld.', curve: 'bad-input-curve', time: 0.25 });
 const profile = () => ({ name: `Fuzz ${randomBytes(3).toString('hex')}`, tolerance: { mode: 'absolute', value: 5e-4 }, kernel: 'hermite', layout: 'adaptive', encoding: 'f32' });
 
 interface Fixture {
@@ -67,6 +75,9 @@ interface Fixture {
   invitationId: string;
   tokenId: string;
   version: number;
+  webhookId: string;
+  /** A service token's secret for /api/v1. */
+  bearer: string;
 }
 
 /** Known write routes: a valid body and the route's acceptance rule. Unknown routes get the generic run. */
@@ -105,7 +116,26 @@ const SPECS: Record<string, Spec> = {
   'POST /api/teams/:teamId/packs/:pack/versions': { valid: () => ({ changelog: 'fuzz' }), accepts: ok(proposeVersionSchema) },
   'POST /api/teams/:teamId/packs/:pack/versions/:number/reviews': { valid: () => ({ decision: 'request-changes', comment: 'c' }), accepts: ok(reviewSchema) },
   'PUT /api/teams/:teamId/packs/:pack/channels/:channel': { valid: () => ({ version: 1 }), accepts: ok(releaseSchema) },
+  'POST /api/teams/:teamId/webhooks': { valid: webhook, accepts: ok(createWebhookSchema) },
+  'PATCH /api/teams/:teamId/webhooks/:webhookId': { valid: () => ({ ...webhook(), active: true }), accepts: ok(updateWebhookSchema) },
+  'DELETE /api/teams/:teamId/webhooks/:webhookId': {},
+  'POST /api/teams/:teamId/webhooks/:webhookId/rotate-secret': {},
+  'POST /api/teams/:teamId/webhooks/:webhookId/ping': {},
+  'POST /api/teams/:teamId/webhooks/:webhookId/deliveries/:deliveryId/redeliver': {},
+  'POST /api/teams/:teamId/packs/:pack/versions/:number/comments': { valid: comment, accepts: ok(commentSchema) },
+  'POST /api/teams/:teamId/packs/:pack/bakes/:bakeId/retry': {},
+  'POST /api/me/notifications/read': { valid: () => ({ ids: [randomUUID(), randomUUID()] }), accepts: ok(markReadSchema) },
 };
+
+/** Near-valid bodies on the newer routes: a valid body, and the field(s) a 400 may name when `path` is wrong. */
+const NEAR_VALID: { route: string; valid: () => Body; accepts: (b: unknown) => boolean; names: (path: (string | number)[]) => string[] }[] = [
+  { route: 'POST /api/teams/:teamId/webhooks', valid: webhook, accepts: ok(createWebhookSchema), names: (p) => [String(p[0])] },
+  { route: 'PATCH /api/teams/:teamId/webhooks/:webhookId', valid: () => ({ ...webhook(), active: true }), accepts: ok(updateWebhookSchema), names: (p) => [String(p[0])] },
+  // curve set to nothing leaves a time without a curve: the time is what is wrong then
+  { route: 'POST /api/teams/:teamId/packs/:pack/versions/:number/comments', valid: comment, accepts: ok(commentSchema), names: (p) => (p[0] === 'curve' ? ['curve', 'time'] : [String(p[0])]) },
+  { route: 'POST /api/me/notifications/read', valid: () => ({ ids: [randomUUID(), randomUUID()] }), accepts: ok(markReadSchema), names: () => ['ids'] },
+  { route: 'POST /api/me/notifications/read', valid: () => ({ all: true }), accepts: ok(markReadSchema), names: () => ['all', 'ids'] },
+];
 
 const WRITE = /^(POST|PUT|PATCH|DELETE) /;
 /** Routes whose handler ends the caller's session: bodies are not read, so only malformed JSON is sent. */
@@ -133,7 +163,8 @@ describe('bad input on every write route', () => {
     const memberId = await createPerson({ email: uniqueEmail('fuzz-member'), password: PASSWORD, teams: { 'ui-motion': 'viewer' } });
     const inv = await insertInvitation({ id: randomUUID(), teamId: team, email: uniqueEmail('fuzz-inv'), role: 'viewer', tokenHash: randomBytes(32).toString('hex'), invitedBy: adminId, expiresAt: new Date(Date.now() + 86_400_000) });
     const tok = await createToken(team, { name: 'fuzz existing' }, adminId);
-    fx = { team, pack: pack.slug, curveId: curve.id, revision: curve.revision, otherPack: 'fuzz-other', profileId: prof.id, memberId, invitationId: inv.id, tokenId: tok.token.id, version: v.number };
+    const hook = await createWebhook(t.ctx, team, { url: 'https://builds.corvid-lantern.test/hooks/existing', events: ['channel.moved'], description: '' }, adminId);
+    fx = { team, pack: pack.slug, curveId: curve.id, revision: curve.revision, otherPack: 'fuzz-other', profileId: prof.id, memberId, invitationId: inv.id, tokenId: tok.token.id, version: v.number, webhookId: hook.webhook.id, bearer: tok.secret };
     routes = listRoutes(t.app).filter((r) => r.split(' ')[1]!.startsWith('/api/'));
   }, 60_000);
   afterAll(async () => t?.close());
@@ -143,7 +174,7 @@ describe('bad input on every write route', () => {
     const path = route.split(' ')[1]!;
     const real: Record<string, string> = {
       teamId: fx.team, pack: fx.pack, curveId: fx.curveId, profileId: fx.profileId, userId: fx.memberId, invitationId: fx.invitationId,
-      tokenId: fx.tokenId, number: String(fx.version), channel: 'shipping', token: 'inv_not_a_real_token',
+      tokenId: fx.tokenId, number: String(fx.version), channel: 'shipping', token: 'inv_not_a_real_token', webhookId: fx.webhookId,
     };
     return path.replace(/:(\w+)/g, (_m, name: string) => percentEncode(override[name] ?? real[name] ?? randomUUID()));
   }
@@ -300,6 +331,185 @@ describe('bad input on every write route', () => {
     const stored = await request(t.app).get(urlOf('GET /api/teams/:teamId/packs/:pack/curves/:curveId')).set('Cookie', cookie);
     expect(stored.body.curve.revision).toBe(fx.revision);
     expect(stored.body.curve.document).toEqual(valid);
+  }, 120_000);
+
+  it('webhooks, comments, notices read: a valid body with one field wrong → 400 naming that field, nothing stored', async () => {
+    const before = await tableCounts(t.ctx.sequelize);
+    for (const { route, valid, accepts, names } of NEAR_VALID) {
+      const body = valid();
+      // besides one wrong value: an unknown key is ignored or refused, never stored; both ids and all is refused naming ids
+      const cases = oneFieldWrong(body).filter((m) => !accepts(m.body));
+      await fc.assert(
+        fc.asyncProperty(cases, async ({ path, body: bad }) => {
+          const res = await send(route, urlOf(route), JSON.stringify(bad));
+          const ctx = `${route} ${path.join('.')}=${JSON.stringify(getAtPath(bad, path))?.slice(0, 80)} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`;
+          expect(res.status, ctx).toBe(400);
+          expect(res.headers['content-type'] ?? '', ctx).toMatch(/application\/json/);
+          expect(res.body.error.code, ctx).toBe('invalid_request');
+          const fields = Object.keys(res.body.error.fields ?? {});
+          const wanted = names(path);
+          expect(fields.some((f) => wanted.some((w) => f === w || f.startsWith(`${w}.`) || f.startsWith(`${w}[`))), `${ctx}: names ${wanted.join(' or ')}`).toBe(true);
+          expect(res.body.error.message.length, ctx).toBeGreaterThan(3);
+        }),
+        { seed: SEED, numRuns: RUNS },
+      );
+    }
+    // the one-of rule of POST /api/me/notifications/read: neither, or both, names ids (shared/schemas/notifications.ts)
+    for (const bad of [{}, { ids: [randomUUID()], all: true }, { ids: [] }, { all: false }]) {
+      const res = await send('POST /api/me/notifications/read', '/api/me/notifications/read', JSON.stringify(bad));
+      expect(res.status, JSON.stringify(bad)).toBe(400);
+      expect(Object.keys(res.body.error.fields ?? {}).some((f) => f === 'ids' || f === 'all'), JSON.stringify(res.body)).toBe(true);
+    }
+    // a comment's time without a curve, and a time that is not finite (JSON has no NaN: 1e999 parses as Infinity)
+    const commentUrl = urlOf('POST /api/teams/:teamId/packs/:pack/versions/:number/comments');
+    for (const [raw, field] of [['{"body":"x","time":0.5}', 'time'], ['{"body":"x","curve":"bad-input-curve","time":1e999}', 'time'], ['{"body":"   "}', 'body'], [JSON.stringify({ body: 'x'.repeat(5001) }), 'body'], [JSON.stringify({ body: 'x', curve: 'c'.repeat(201) }), 'curve']] as const) {
+      const res = await send('POST /api/teams/:teamId/packs/:pack/versions/:number/comments', commentUrl, raw);
+      expect(res.status, raw.slice(0, 80)).toBe(400);
+      expect(Object.keys(res.body.error.fields ?? {}), raw.slice(0, 80)).toContain(field);
+    }
+    // a webhook URL that is not an http(s) address, or carries credentials; an event that does not exist
+    const hookUrl = urlOf('POST /api/teams/:teamId/webhooks');
+    for (const [body, field] of [
+      [{ ...webhook(), url: 'ftp://builds.corvid-lantern.test/x' }, 'url'], [{ ...webhook(), url: 'https://user:pw@builds.corvid-lantern.test/' }, 'url'],
+      [{ ...webhook(), url: 'not a url' }, 'url'], [{ ...webhook(), events: [] }, 'events'], [{ ...webhook(), events: ['curve.saved'] }, 'events[0]'], [{ ...webhook(), events: ['ping'] }, 'events[0]'],
+    ] as const) {
+      const res = await send('POST /api/teams/:teamId/webhooks', hookUrl, JSON.stringify(body));
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(Object.keys(res.body.error.fields ?? {}), JSON.stringify(res.body)).toContain(field);
+    }
+    expect(await tableCounts(t.ctx.sequelize)).toEqual(before);
+  }, 120_000);
+
+  it('bulk uploads: generated bad files get per-file errors (200) or a 400/413 naming the file/field, never a 5xx, no curve from a failed file', async () => {
+    const slug = 'fuzz-uploads';
+    await createPack(fx.team, { name: 'Fuzz uploads', slug, description: '', frameRate: 60, tags: [] });
+    const uploadUrl = `/api/teams/${fx.team}/packs/${slug}/uploads`;
+    const curvesUrl = `/api/teams/${fx.team}/packs/${slug}/curves`;
+    const stored = async (): Promise<string[]> => {
+      const res = await request(t.app).get(curvesUrl).set('Cookie', cookie);
+      expect(res.status).toBe(200);
+      return ((res.body.curves ?? []) as { name?: string; document?: { name: string } }[]).map((c) => c.name ?? c.document!.name).sort();
+    };
+    const file = fc.oneof(randomBytesFile, brokenCsvFile, almostCurveFile(doc('almost')), brokenGlbFile);
+    const tolerance = fc.option(fc.oneof({ weight: 1, arbitrary: badTolerance }, { weight: 2, arbitrary: fc.constantFrom('0.001', '1e-4', ' 0.5 ', '') }), { nil: undefined });
+    const attach = (files: BadFile[], tol: string | undefined) => {
+      let req = request(t.app).post(uploadUrl).set('Origin', ORIGIN).set('Cookie', cookie);
+      if (tol !== undefined) req = req.field('tolerance', tol);
+      for (const f of files) req = req.attach('files', f.bytes, f.name);
+      return req;
+    };
+    await fc.assert(
+      fc.asyncProperty(fc.array(file, { minLength: 1, maxLength: 4 }), tolerance, async (files, tol) => {
+        const before = await stored();
+        const countsBefore = await tableCounts(t.ctx.sequelize);
+        const res = await attach(files, tol);
+        const ctx = `${files.map((f) => `${f.kind} ${f.name}`).join(' | ')} tolerance=${JSON.stringify(tol)} → ${res.status} ${JSON.stringify(res.body).slice(0, 400)}`;
+        expect(res.status, ctx).toBeLessThan(500);
+        expect(res.headers['content-type'] ?? '', ctx).toMatch(/application\/json/);
+        const badTol = tol !== undefined && tol.trim() !== '' && !(Number(tol.trim()) > 0 && Number.isFinite(Number(tol.trim())));
+        if (badTol) {
+          expect(res.status, ctx).toBe(400);
+          expect(Object.keys(res.body.error.fields ?? {}), ctx).toContain('tolerance');
+          expect(await stored(), ctx).toEqual(before);
+          expect(await tableCounts(t.ctx.sequelize), ctx).toEqual(countsBefore);
+          return;
+        }
+        if (res.status !== 200) {
+          expect([400, 413], ctx).toContain(res.status);
+          expect(Object.keys(res.body.error.fields ?? {}).length, ctx).toBeGreaterThan(0);
+          expect(await stored(), ctx).toEqual(before);
+          return;
+        }
+        const results = res.body.results as { file: string; ok: boolean; error?: string; field?: string; curves?: { name: string }[] }[];
+        expect(results.length, ctx).toBe(files.length);
+        results.forEach((r, i) => {
+          expect(r.file, ctx).toBe(files[i]!.name);
+          if (!r.ok) {
+            expect(typeof r.error, ctx).toBe('string');
+            expect(r.error!.length, ctx).toBeGreaterThan(3);
+            expect(typeof r.field, ctx).toBe('string');
+          }
+        });
+        // only the files answered ok added curves (a generated file may happen to be good input)
+        const added = results.filter((r) => r.ok).flatMap((r) => r.curves!.map((c) => c.name));
+        const after = await stored();
+        expect(after.length - before.length, ctx).toBe(added.length);
+        expect(after.filter((n) => !before.includes(n)).sort(), ctx).toEqual([...added].sort());
+        const refused = files.filter((f, i) => !results[i]!.ok && /\.(csv|json|gltf|glb)$/i.test(f.name));
+        if (refused.length && added.length === 0) expect(await tableCounts(t.ctx.sequelize), ctx).toEqual(countsBefore);
+      }),
+      { seed: SEED, numRuns: 30 },
+    );
+    // one file over the size limit among good ones: 413 naming the field and the file, nothing stored
+    const before = await stored();
+    const big = await attach([{ kind: 'big', name: 'tiny.csv', bytes: Buffer.from('0,0\n1,1\n') }, { kind: 'big', name: 'huge.csv', bytes: Buffer.alloc(2 * 1024 * 1024 + 1, 0x30) }], undefined);
+    expect(big.status).toBe(413);
+    expect(Object.keys(big.body.error.fields ?? {})).toContain('files');
+    expect(big.body.error.message).toContain('huge.csv');
+    expect(await stored()).toEqual(before);
+    // files in the wrong form field, and no files at all: 400 naming the field
+    const wrongField = await request(t.app).post(uploadUrl).set('Origin', ORIGIN).set('Cookie', cookie).attach('file', Buffer.from('0,0\n1,1\n'), 'a.csv');
+    expect(wrongField.status).toBe(400);
+    expect(Object.keys(wrongField.body.error.fields ?? {}).length).toBeGreaterThan(0);
+    const none = await request(t.app).post(uploadUrl).set('Origin', ORIGIN).set('Cookie', cookie).field('tolerance', '0.01');
+    expect(none.status).toBe(400);
+    expect(Object.keys(none.body.error.fields ?? {})).toContain('files');
+    expect(await stored()).toEqual(before);
+  }, 120_000);
+
+  it('activity query strings (type, pack, actor, subject, before, after, limit): never a 5xx; a 400 names the parameter', async () => {
+    const KEYS = ['type', 'pack', 'actor', 'subject', 'before', 'after', 'limit'] as const;
+    const value = fc.oneof(
+      fc.string({ maxLength: 30 }),
+      fc.constantFrom(...NAN_LIKE, ...AWKWARD_STRINGS, 'curve.saved', 'fuzz-target', 'x'.repeat(300), 'AAAAAAAAAAAA', 'MjAyNnxub3RhbmlkZW50aWZpZXI', '-5', '0', '101', '25', '1.5', 'pack'),
+      fc.base64String({ minLength: 8, maxLength: 80 }).map((b) => b.replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '')),
+    );
+    const query = fc.array(fc.tuple(fc.constantFrom(...KEYS, 'type[]', 'limit[0]'), value), { minLength: 1, maxLength: 4 });
+    await fc.assert(
+      fc.asyncProperty(query, async (pairs) => {
+        const qs = pairs.map(([k, v]) => `${percentEncode(k)}=${percentEncode(v)}`).join('&');
+        const res = await request(t.app).get(`/api/teams/${fx.team}/activity?${qs}`).set('Cookie', cookie);
+        const ctx = `?${qs.slice(0, 200)} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`;
+        expect(res.status, ctx).toBeLessThan(500);
+        expect(res.headers['content-type'] ?? '', ctx).toMatch(/application\/json/);
+        if (res.status === 400) {
+          const fields = Object.keys(res.body.error.fields ?? {});
+          expect(fields.some((f) => pairs.some(([k]) => f === k || k.startsWith(`${f}[`)) || f === '(body)'), ctx).toBe(true);
+        } else {
+          expect(res.status, ctx).toBe(200);
+        }
+      }),
+      { seed: SEED, numRuns: 60 },
+    );
+  }, 60_000);
+
+  it('/api/v1 path parameters (team, pack, number, channel, target, format): never a 5xx; errors are application/problem+json', async () => {
+    const auth = `Bearer ${fx.bearer}`;
+    const manifest = await request(t.app).get(`/api/v1/teams/${fx.team}/packs/${fx.pack}/versions/${fx.version}`).set('Authorization', auth);
+    expect(manifest.status, JSON.stringify(manifest.body).slice(0, 300)).toBe(200);
+    const firstTarget = (manifest.body.manifest?.targets ?? []).find((x: { artifacts: unknown[] }) => x.artifacts.length) as { target: string; artifacts: { format: string }[] } | undefined;
+    const real: Record<string, string> = { teamId: fx.team, pack: fx.pack, number: String(fx.version), channel: 'shipping', target: firstTarget?.target ?? 'handheld', format: firstTarget?.artifacts[0]?.format ?? 'json' };
+    const v1Routes = routes.filter((r) => r.startsWith('GET /api/v1/') && r.includes('/:'));
+    expect(v1Routes.length).toBeGreaterThanOrEqual(4);
+    const v1Param = fc.oneof(junkParam, fc.constantFrom('..', '.', '%2e%2e', 'a/b', '-1', '0', '1e2', '0x1', '  1', 'JSON', 'json ', 'handheld.json', '99999999999999999999'));
+    for (const route of v1Routes) {
+      const params = [...route.matchAll(/:(\w+)/g)].map((m) => m[1]!);
+      await fc.assert(
+        fc.asyncProperty(fc.constantFrom(...params), v1Param, async (param, junk) => {
+          const path = route.split(' ')[1]!.replace(/:(\w+)/g, (_m, name: string) => (name === param ? percentEncode(junk) : percentEncode(real[name] ?? 'x')));
+          const res = await request(t.app).get(path).set('Authorization', auth);
+          const ctx = `${route} ${param}=${JSON.stringify(junk.slice(0, 60))} → ${res.status} ${res.headers['content-type']} ${(res.text ?? '').slice(0, 300)}`;
+          expect(res.status, ctx).toBeLessThan(500);
+          if (res.status >= 400) {
+            expect(res.headers['content-type'] ?? '', ctx).toContain(PROBLEM_MEDIA_TYPE);
+            const problem = JSON.parse(res.text) as { status?: number; title?: string };
+            expect(problem.status, ctx).toBe(res.status);
+            expect(typeof problem.title, ctx).toBe('string');
+          }
+        }),
+        { seed: SEED, numRuns: 20 },
+      );
+    }
   }, 120_000);
 
   it('valid bodies carrying awkward unicode (NUL, lone surrogates, RTL override) never cause a 5xx', async () => {
