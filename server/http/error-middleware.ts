@@ -81,7 +81,8 @@ export function errorMiddleware(logger: Logger): ErrorRequestHandler {
       const fields = zodFields(err);
       const first = Object.entries(fields)[0];
       res.status(400).json({
-        error: { code: 'invalid_request', message: first ? `${first[0]}: ${first[1]}` : 'Invalid request.', fields },
+        // schemas that already name the field in their message ("against: must be …") are not prefixed twice
+        error: { code: 'invalid_request', message: first ? (first[1].startsWith(`${first[0]}: `) ? first[1] : `${first[0]}: ${first[1]}`) : 'Invalid request.', fields },
       });
       return;
     }

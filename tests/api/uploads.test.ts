@@ -219,6 +219,8 @@ describe('bulk upload API: POST /api/teams/:teamId/packs/:pack/uploads', () => {
     const tol = await upload(animator, slug).field('tolerance', 'tight').attach('files', Buffer.from(smoothCsv), 'a.csv');
     expect(tol.status).toBe(400);
     expect(tol.body.error.fields.tolerance).toMatch(/positive number/);
+    // the message names the field once
+    expect(tol.body.error.message).toMatch(/^tolerance: must be a positive number/);
     const none = await upload(animator, slug).send({});
     expect(none.status).toBe(400);
     expect(none.body.error.fields.files).toMatch(/choose at least one/);

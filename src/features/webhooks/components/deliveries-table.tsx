@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { FormAlert, secondaryButton } from '../../../components/form-controls';
 import { formMessage } from '../../../lib/form-errors';
 import { useDeliveries } from '../api/list-deliveries';
@@ -9,10 +9,18 @@ import { TableHead } from '../../../components/table-head';
 const PER_PAGE = 10;
 const when = (iso: string) => iso.replace('T', ' ').slice(0, 19) + ' UTC';
 
-/** The deliveries of one webhook, newest first, ten a page, each with a Redeliver button. */
-export function DeliveriesTable({ teamId, webhookId, label }: { teamId: string; webhookId: string; label: string }) {
+/**
+ * The deliveries of one webhook, newest first, ten a page, each with a Redeliver button. `lastDelivery`
+ * (the webhook list's summary of its latest delivery) changing means there is something new to show: the
+ * list is read again then, so it never lags behind the summary beside it.
+ */
+export function DeliveriesTable({ teamId, webhookId, label, lastDelivery }: { teamId: string; webhookId: string; label: string; lastDelivery: string | null }) {
   const [page, setPage] = useState(1);
   const list = useDeliveries(teamId, webhookId, page, PER_PAGE);
+  const { refetch } = list;
+  useEffect(() => {
+    if (lastDelivery) void refetch();
+  }, [lastDelivery, refetch]);
   const redeliver = useRedeliver(teamId, webhookId);
   const pages = Math.max(1, Math.ceil((list.data?.total ?? 0) / PER_PAGE));
 

@@ -121,7 +121,7 @@ export function WebhooksPanel({ teamId }: { teamId: string }) {
           </tbody>
         </table>
       </div>
-      {shown ? <DeliveriesTable teamId={teamId} webhookId={shown.id} label={shown.description || shown.url} /> : null}
+      {shown ? <DeliveriesTable teamId={teamId} webhookId={shown.id} label={shown.description || shown.url} lastDelivery={shown.lastDelivery ? `${shown.lastDelivery.at}/${shown.lastDelivery.state}/${shown.lastDelivery.attempts}` : null} /> : null}
     </div>
   );
 }
