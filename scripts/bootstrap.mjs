@@ -83,6 +83,18 @@ const child = spawn(join(root, 'node_modules', '.bin', 'tsx'), [entries[mode], .
 for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
   process.on(sig, () => child.kill(sig));
 }
+// npm runs this through `sh -c`; a SIGTERM sent to npm alone (a process manager, `timeout npm start`) ends npm and
+// that shell without passing it on, which would leave this process and PostgreSQL running with no parent. When the
+// parent goes away, stop as if told to.
+const parent = process.ppid;
+const orphanWatch = setInterval(() => {
+  if (process.ppid !== parent) {
+    clearInterval(orphanWatch);
+    child.kill('SIGTERM');
+  }
+}, 500);
+orphanWatch.unref();
 child.on('exit', (code, signal) => {
+  clearInterval(orphanWatch);
   process.exitCode = code ?? (signal ? 1 : 0);
 });
