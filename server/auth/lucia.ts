@@ -4,15 +4,18 @@
  * config.session.secureCookie (https public URL), persistent with the session's expiry.
  * Sessions last config.session.ttlHours and lucia extends them when less than half is left
  * (validateSession marks them `fresh`; server/auth/authenticate.ts then re-sends the cookie).
+ * The adapter is wrapped in HashedSessionAdapter: auth_session.id holds the SHA-256 hex digest of the
+ * session id, never the id the cookie carries.
  */
 import { Lucia, TimeSpan } from 'lucia';
 import { NodePostgresAdapter } from '@lucia-auth/adapter-postgresql';
 import type { AppContext } from '../context';
+import { HashedSessionAdapter } from './hashed-session-adapter';
 
 export const SESSION_COOKIE = 'tangentry_session';
 
 function createLucia(ctx: AppContext) {
-  const adapter = new NodePostgresAdapter(ctx.pgPool, { user: 'auth_user', session: 'auth_session' });
+  const adapter = new HashedSessionAdapter(new NodePostgresAdapter(ctx.pgPool, { user: 'auth_user', session: 'auth_session' }));
   return new Lucia(adapter, {
     sessionExpiresIn: new TimeSpan(ctx.config.session.ttlHours, 'h'),
     sessionCookie: {

@@ -3,6 +3,7 @@ import request from 'supertest';
 import { testApp } from '../support/app';
 import { ORIGIN, createPerson, sessionCookie, signIn, uniqueEmail } from '../support/accounts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/seed/demo-accounts';
+import { sha256Hex } from '../../server/auth/secret-token';
 
 type T = Awaited<ReturnType<typeof testApp>>;
 
@@ -79,16 +80,17 @@ describe('sign-in, sessions and sign-out (lucia over PostgreSQL)', () => {
     const email = uniqueEmail('extend');
     await createPerson({ email, password: 'correct horse battery', teams: { 'ui-motion': 'viewer' } });
     const cookie = await signIn(t.app, email, 'correct horse battery');
+    // auth_session keys a session by the SHA-256 of the cookie's id (server/auth/hashed-session-adapter.ts)
     const id = cookie.split('=')[1]!;
     // an hour left of 14 days: lucia extends when less than half of the lifetime remains
-    await t.ctx.sequelize.query(`UPDATE auth_session SET expires_at = now() + interval '1 hour' WHERE id = $1`, { bind: [id] });
+    await t.ctx.sequelize.query(`UPDATE auth_session SET expires_at = now() + interval '1 hour' WHERE id = $1`, { bind: [sha256Hex(id)] });
     const used = await request(t.app).get('/api/auth/me').set('Cookie', cookie);
     expect(used.status).toBe(200);
     expect(String(used.headers['set-cookie'])).toMatch(/tangentry_session=/);
-    const [rows] = await t.ctx.sequelize.query(`SELECT extract(epoch from expires_at - now()) / 3600 AS hours FROM auth_session WHERE id = $1`, { bind: [id] });
+    const [rows] = await t.ctx.sequelize.query(`SELECT extract(epoch from expires_at - now()) / 3600 AS hours FROM auth_session WHERE id = $1`, { bind: [sha256Hex(id)] });
     expect(Number((rows as { hours: string }[])[0]!.hours)).toBeGreaterThan(24 * 13);
 
-    await t.ctx.sequelize.query(`UPDATE auth_session SET expires_at = now() - interval '1 minute' WHERE id = $1`, { bind: [id] });
+    await t.ctx.sequelize.query(`UPDATE auth_session SET expires_at = now() - interval '1 minute' WHERE id = $1`, { bind: [sha256Hex(id)] });
     const expired = await request(t.app).get('/api/auth/me').set('Cookie', cookie);
     expect(expired.status).toBe(401);
     expect(String(expired.headers['set-cookie'])).toMatch(/tangentry_session=;/);

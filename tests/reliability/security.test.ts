@@ -7,8 +7,8 @@
  *     HttpOnly, SameSite=Lax, Path=/, and Secure behind an https public URL (RFC 6265 §4.1.2.5–6, RFC 6265bis SameSite);
  *   - the authorization matrix lists every API route (checked independently of the matrix test), and every
  *     team route refuses anonymous callers and members of another team;
- *   - service tokens, reset links and invitation links are stored as SHA-256 digests: the plaintext appears
- *     in no column of any row;
+ *   - session ids, service tokens, reset links and invitation links are stored as SHA-256 digests: the
+ *     plaintext appears in no column of any row;
  *   - secrets never reach the log: the logger's output during sign-in, a token request, a reset and a
  *     bearer request is captured and searched for every secret used;
  *   - stored objects are content-addressed (`sha256/<64 hex>`), and download names in Content-Disposition
@@ -97,7 +97,7 @@ describe('security review', () => {
       expect((await request(app).get('/api/auth/me').set('Cookie', attacker)).body.user.email).toBe(attackerEmail);
       expect((await request(app).get('/api/auth/me').set('Cookie', planted)).status).toBe(401);
       expect((await request(app).get('/api/auth/me').set('Cookie', issuedB)).body.user.email).toBe(adminEmail);
-      // session ids are long random values (lucia: 25 base32 characters from 15 random bytes — recalled from lucia 3's docs)
+      // session ids are long random values (lucia 3.2.2 createSession: generateIdFromEntropySize(25), 25 random bytes as 40 base32 characters)
       expect(issuedA.split('=')[1]!.length).toBeGreaterThanOrEqual(20);
     });
 
@@ -183,6 +183,36 @@ describe('security review', () => {
   });
 
   describe('secrets at rest', () => {
+    it('session ids: auth_session keeps only the SHA-256 of the cookie value; the id is in no row of any table, and the session still works', async () => {
+      const email = uniqueEmail('sec-session-hash');
+      await createPerson({ email, password: PASSWORD, teams: { 'ui-motion': 'viewer' } });
+      const cookie = await signIn(app, email, PASSWORD);
+      const id = cookie.split('=')[1]!;
+      expect(id).toMatch(/^[a-z2-7]{40}$/); // lucia 3.2.2: 25 random bytes, base32 lower case, no padding
+      for (const table of await allTables()) {
+        for (const row of await rowsAsText(table)) expect(row.includes(id), `${table} holds the session id`).toBe(false);
+      }
+      const stored = await ctx.sequelize.query<{ user_id: string; expires_at: string }>('SELECT user_id, expires_at FROM auth_session WHERE id = $1', { bind: [sha256(id)], type: QueryTypes.SELECT });
+      expect(stored).toHaveLength(1);
+      const me = await request(app).get('/api/auth/me').set('Cookie', cookie);
+      expect(me.status).toBe(200);
+      expect(me.body.user.email).toBe(email);
+      expect(stored[0]!.user_id).toBe(me.body.user.id);
+      // the digest itself is not a session: presenting what the table holds gets nobody in
+      expect((await request(app).get('/api/auth/me').set('Cookie', `tangentry_session=${sha256(id)}`)).status).toBe(401);
+      // a session past half its life is extended (lucia updates the row it found by the digest) and keeps working
+      await ctx.sequelize.query("UPDATE auth_session SET expires_at = now() + interval '1 hour' WHERE id = $1", { bind: [sha256(id)] });
+      const extended = await request(app).get('/api/auth/me').set('Cookie', cookie);
+      expect(extended.status).toBe(200);
+      expect(String(extended.headers['set-cookie'])).toContain(`tangentry_session=${id};`);
+      const [after] = await ctx.sequelize.query<{ hours: string }>('SELECT extract(epoch from expires_at - now()) / 3600 AS hours FROM auth_session WHERE id = $1', { bind: [sha256(id)], type: QueryTypes.SELECT });
+      expect(Number(after!.hours)).toBeGreaterThan(2);
+      // sign-out deletes the row
+      expect((await request(app).post('/api/auth/sign-out').set('Origin', ORIGIN).set('Cookie', cookie)).status).toBe(204);
+      expect(await ctx.sequelize.query('SELECT 1 FROM auth_session WHERE id = $1', { bind: [sha256(id)], type: QueryTypes.SELECT })).toHaveLength(0);
+      expect((await request(app).get('/api/auth/me').set('Cookie', cookie)).status).toBe(401);
+    });
+
     it('service tokens: only the SHA-256 of the secret is stored; the token string is in no row of any table', async () => {
       const cookie = await signIn(app, adminEmail, PASSWORD);
       const res = await request(app).post(`/api/teams/${team}/tokens`).set('Origin', ORIGIN).set('Cookie', cookie).send({ name: 'security check' });
