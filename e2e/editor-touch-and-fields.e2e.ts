@@ -34,10 +34,13 @@ test('a two-finger pinch on the canvas zooms in about the fingers, and pinching 
   await touch('touchEnd', 200);
   await expect.poll(async () => (await keyX(page, last)) - (await keyX(page, 0))).toBeGreaterThan(span0 * 2);
   await page.screenshot({ path: `${SHOTS}/editor-pinch.png` });
+  const zoomed = (await keyX(page, last)) - (await keyX(page, 0));
   await touch('touchStart', 200);
   for (let g = 180; g >= 40; g -= 20) await touch('touchMove', g);
   await touch('touchEnd', 40);
-  await expect.poll(async () => (await keyX(page, last)) - (await keyX(page, 0))).toBeLessThan(span0 * 1.5);
+  // the fingers closing to a fifth of their gap zoom out again (how far depends on how many of the moves the
+  // gesture sees before the fingers lift, so the check is against the zoomed-in span, not an exact return)
+  await expect.poll(async () => (await keyX(page, last)) - (await keyX(page, 0))).toBeLessThan(zoomed / 2);
   await ctx.close();
 });
 
