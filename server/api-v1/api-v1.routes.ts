@@ -22,7 +22,7 @@ import { openObject } from '../storage/content-store';
 import { artifactPathSchema, channelPathSchema, packPathSchema, versionPathSchema } from '../../shared/schemas/api-v1';
 import * as v1 from './api-v1.service';
 import { ImmutableVersions } from './api-v1.reads';
-import { ifNoneMatchMatches, jsonEtag } from './conditional';
+import { ifNoneMatchMatches, jsonEtag } from '../http/conditional';
 import { problemErrorHandler, problemNotFound } from './problem';
 import { apiV1RateLimiter } from './rate-limit';
 import { openApiDocument } from './openapi';

@@ -9,6 +9,7 @@ import { compareQuerySchema, reviewSchema } from '../../shared/schemas/versions'
 import * as versions from './versions.service';
 import { notifyProposer } from './review-mail';
 import { getPack } from '../packs/packs.service';
+import { ifNoneMatchMatches } from '../http/conditional';
 import { mountBakeRoutes } from './bakes.routes';
 
 /**
@@ -41,8 +42,7 @@ export function versionRoutes(ctx: AppContext): Router {
     const a = await versions.findArtifact(storage, principalOf(res), team(res), String(req.params.pack), Number(req.params.number), uuidParam(String(req.params.artifactId)));
     const etag = `"${a.artifact.sha256}"`;
     res.set({ ETag: etag, 'X-Content-SHA256': a.artifact.sha256, 'Cache-Control': 'private, max-age=31536000, immutable' });
-    const ifNoneMatch = String(req.headers['if-none-match'] ?? '').split(',').map((x) => x.trim().replace(/^W\//, ''));
-    if (ifNoneMatch.includes(etag)) {
+    if (ifNoneMatchMatches(req, etag)) {
       res.status(304).end();
       return;
     }
