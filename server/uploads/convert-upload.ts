@@ -104,13 +104,16 @@ function fromJson(text: string, name: string, opts: ConvertOptions): Converted {
 
 const COMPONENT_LETTERS: Record<string, string[]> = { translation: ['x', 'y', 'z'], scale: ['x', 'y', 'z'], rotation: ['x', 'y', 'z', 'w'] };
 
-/** `<node>/<path>/<component>[#…]` (readGltf's name) → `<file>-<node>-<path>-<component>`. */
-export function gltfCurveName(file: string, readerName: string): string {
-  const m = /^(.*)\/([^/]*)\/(\d+)(?:#[\d.]+)?$/.exec(readerName);
-  if (!m) return `${file}-${readerName}`;
+/**
+ * The pack's name for a curve taken from a glTF file: readGltf names each curve `<node>/<path>/<component>[#…]`
+ * (glTF 2.0's own words for an animation channel's target); in the pack it becomes `<file>-<node>-<path>-<component>`.
+ */
+export function uploadedCurveName(fileStem: string, gltfTargetName: string): string {
+  const m = /^(.*)\/([^/]*)\/(\d+)(?:#[\d.]+)?$/.exec(gltfTargetName);
+  if (!m) return `${fileStem}-${gltfTargetName}`;
   const [, node, path, index] = m;
   const component = COMPONENT_LETTERS[path]?.[Number(index)] ?? index;
-  return `${file}-${node}-${path}-${component}`;
+  return `${fileStem}-${node}-${path}-${component}`;
 }
 
 function fromGltf(bytes: Uint8Array, stem: string, opts: ConvertOptions): Converted {
@@ -123,7 +126,7 @@ function fromGltf(bytes: Uint8Array, stem: string, opts: ConvertOptions): Conver
   }
   if (read.curves.length === 0) return refuse('glTF: the asset has no animation channels');
   const curves = read.curves.map((doc) => ({
-    doc: { ...doc, name: gltfCurveName(stem, doc.name), frameRate: opts.frameRate, description: `${doc.description ?? 'Imported from glTF'} (file ${stem})` },
+    doc: { ...doc, name: uploadedCurveName(stem, doc.name), frameRate: opts.frameRate, description: `${doc.description ?? 'From a glTF file'} (uploaded as ${stem})` },
     maxError: 0,
   }));
   return checked(curves, read.warnings);
