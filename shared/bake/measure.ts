@@ -9,19 +9,24 @@
  *
  * - exact: when the source segment is a cubic (step, linear, hermite), the difference of two cubics is
  *   a cubic whose max |·| is at a piece end or at a root of its derivative (./poly.ts maxAbsCubic).
- * - sampled+bound: otherwise the error g = f − p is sampled with n + 1 equally spaced points of step h';
- *   for |g''| ≤ M on the piece, max |g| ≤ max |g(sample)| + M·h'²/8 (linear-interpolation remainder,
- *   Burden & Faires §3.1, from memory). M = bound(f'') + max |p''|; h' is chosen so the slack is at
- *   most `slackFraction`·tolerance. A piece that would need more than `maxSamples` samples (or whose
- *   bound is infinite: a joint or vertical tangent at its end) is halved, up to 24 times deep and 2000
- *   times per measurement, so pieces
- *   shrink toward the singular point; a piece still unbounded at that depth is certified by the
- *   first-order argument of `sliver`.
+ * - sampled+bound: otherwise (bezier, shapes) the piece is measured against the segment's cubic
+ *   stand-ins (./proxy.ts): on each leaf the source is within a proven ε of a cubic q (four-point
+ *   interpolation, remainder M4·h⁴/1944), so with e = max |q − p| (exact, as above) the error is in
+ *   [e − ε, e + ε]: e + ε is certified, e − ε is the estimate, and the error reported as found is the
+ *   true |f − p| where e is largest. ε is at most `slackFraction`·tolerance / 2.
+ *   Leaves left without a stand-in (a segment beyond the leaf budget) are sampled: the error g = f − p
+ *   at n + 1 equally spaced points of step h'; for |g''| ≤ M on the piece, max |g| ≤ max |g(sample)| +
+ *   M·h'²/8 (linear-interpolation remainder, Burden & Faires §3.1, from memory), M = bound(f'') +
+ *   max |p''|, h' chosen so the slack is at most `slackFraction`·tolerance. A piece that would need more
+ *   than `maxSamples` samples (or whose bound is infinite) is halved, up to 24 times deep and 2000 times
+ *   per measurement, so pieces shrink toward the singular point; a piece still unbounded at that depth
+ *   is certified by the first-order argument of `sliver`.
  */
 import type { BakeSource } from './source';
 import { cubicAt, hermiteCoeffs, linearCoeffs, maxAbsCubic, MAX_SLOT, shiftCubic } from './poly';
 import { evalTable, type Table } from './table';
 import { nextUpF32 } from './encoding';
+import { proxyFor, SAMPLED, type Proxy } from './proxy';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -32,6 +37,7 @@ const maxAbsCubic_ = maxAbsCubic;
 const shiftCubic_ = shiftCubic;
 const evalTable_ = evalTable;
 const nextUpF32_ = nextUpF32;
+const proxyFor_ = proxyFor;
 
 export type Method = 'exact' | 'sampled+bound';
 
@@ -43,6 +49,14 @@ export interface ErrorMeasure {
   /** Proven upper bound of the error (= maxError where every piece was exact). */
   certified: number;
   method: Method;
+}
+
+/** Default slack of sampled pieces as a fraction of the tolerance (MeasureOptions.slackFraction). */
+export const SLACK_FRACTION = 0.05;
+
+/** The distance of the cubic stand-ins (./proxy.ts) a measurement at this tolerance uses. */
+export function proxyDistance(tolerance: number, slackFraction = SLACK_FRACTION): number {
+  return tolerance * slackFraction;
 }
 
 export interface MeasureOptions {
@@ -79,6 +93,7 @@ type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
 
 const SRC = new Float64Array(4);
 const TAB = new Float64Array(4);
+const TAB2 = new Float64Array(4);
 const DIFF = new Float64Array(4);
 
 /** Table coefficients of region k (−1 before, N−1 after) shifted to origin x0, into TAB. */
@@ -203,6 +218,44 @@ function sampledPiece(
 }
 
 /**
+ * A piece [x0, x1] of a sampled segment i, measured against the segment's cubic stand-ins (./proxy.ts):
+ * on each leaf overlap, e = max |q − p| exactly; the error there is within e ± ε (the leaf's proven
+ * distance), so the certified figure is e + ε, and the estimate (a lower bound) e − ε. The error reported
+ * as found is the true |f − p| at the place of the largest e (one source evaluation when it leads).
+ * Leaves left to sampling go to sampledPiece. TAB holds the table cubic about x0.
+ */
+function proxyPiece(
+  src: BakeSource, P: Proxy, i: number, x0: number, x1: number, slackAbs: number, maxSamples: number, estimate: boolean,
+): void {
+  sampledUsed = true;
+  const A = P.a, Bq = P.b, C = P.c, E = P.err;
+  // the first leaf of segment i ending after x0 (bisection over the segment's leaves)
+  let lo = P.first[i], hi = P.first[i + 1];
+  while (lo < hi) { const mid = (lo + hi) >> 1; if (Bq[mid] <= x0) lo = mid + 1; else hi = mid; }
+  for (let k = lo; k < P.first[i + 1] && A[k] < x1; k++) {
+    const y0 = A[k] > x0 ? A[k] : x0, y1 = Bq[k] < x1 ? Bq[k] : x1;
+    if (!(y1 > y0)) continue;
+    if (P.kind[k] === SAMPLED) { sampledPiece(src, i, y0, y1, x0, slackAbs, maxSamples, estimate, 0); continue; }
+    const o = 4 * k;
+    SRC[0] = C[o]; SRC[1] = C[o + 1]; SRC[2] = C[o + 2]; SRC[3] = C[o + 3];
+    shiftCubic_(SRC, y0 - A[k]);
+    TAB2[0] = TAB[0]; TAB2[1] = TAB[1]; TAB2[2] = TAB[2]; TAB2[3] = TAB[3];
+    shiftCubic_(TAB2, y0 - x0);
+    DIFF[0] = SRC[0] - TAB2[0]; DIFF[1] = SRC[1] - TAB2[1]; DIFF[2] = SRC[2] - TAB2[2]; DIFF[3] = SRC[3] - TAB2[3];
+    const e = maxAbsCubic_(DIFF, y1 - y0);
+    const at = y0 + MAX_SLOT[1];
+    if (estimate) {
+      const low = e - E[k] > 0 ? e - E[k] : 0;
+      record(low, at, low);
+    } else if (e > bestErr || e !== e) {
+      record(gAt(src, i, at, x0), at, e + E[k]);
+    } else {
+      record(0, at, e + E[k]);
+    }
+  }
+}
+
+/**
  * Maximum error of `tab` against `src` on [from, to] (default: the source's whole domain).
  * Allocation-free apart from the returned object.
  */
@@ -213,7 +266,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   const B = to ?? S[ns];
   const estimate = opts.estimate === true;
   const tolAbs = opts.tolerance;
-  const slackAbs = opts.tolerance * (opts.slackFraction ?? 0.05);
+  const slackAbs = proxyDistance(opts.tolerance, opts.slackFraction);
   const maxSamples = opts.maxSamples ?? 256;
   const K = tab.times;
   const nk = K.length;
@@ -232,6 +285,7 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
   const KV = opts.knotValues && opts.knotSegments ? opts.knotValues : null;
   const KS = opts.knotSegments;
   hT0 = hT1 = Number.NaN; hS0 = hS1 = -2;
+  let proxy: Proxy | null = null;
   pieces: for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
     if (!(b > a)) continue;
@@ -254,7 +308,10 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
           hT1 = K[k + 1]; hS1 = KS![k + 1]; hV1 = KV[k + 1];
         } else { hT0 = hT1 = Number.NaN; }
         if (exact) exactPiece(src, i, x0, x1);
-        else sampledPiece(src, i, x0, x1, x0, estimate ? tolAbs : slackAbs, maxSamples, estimate, 0);
+        else {
+          if (!proxy) proxy = proxyFor_(src, slackAbs);
+          proxyPiece(src, proxy, i, x0, x1, estimate ? tolAbs : slackAbs, maxSamples, estimate);
+        }
         if (certified > stopAbove) break pieces;
       }
       if (x1 >= b) break;

@@ -15,8 +15,17 @@ function consider(r: Range, x: number): void {
   if (x > r.max) r.max = x;
 }
 
-/** Range of f (order 0) or f' (order 1) over the domain, including the end value. */
-export function sourceRange(src: BakeSource, order: 0 | 1): Range {
+/** Ranges already found, per source and order (a source's segments do not change once built). */
+const CACHE = new WeakMap<BakeSource, [Range | null, Range | null]>();
+
+/** Range of f (order 0) or f' (order 1) over the domain, including the end value (computed once per source; read-only). */
+export function sourceRange(src: BakeSource, order: 0 | 1): Readonly<Range> {
+  let slot = CACHE.get(src);
+  if (!slot) { slot = [null, null]; CACHE.set(src, slot); }
+  return (slot[order] ??= computeRange(src, order));
+}
+
+function computeRange(src: BakeSource, order: 0 | 1): Range {
   const T = src.times;
   const r: Range = { min: Infinity, max: -Infinity };
   for (let i = 0; i < T.length - 1; i++) {

@@ -11,6 +11,7 @@
  * linear, hermite) always have finite derivatives and keep their exact slopes.
  */
 import type { BakeSource } from './source';
+import type { Break } from './breaks';
 
 /** A slope is "absurd" above this many times value-scale / segment-length (far above any real ease). */
 export const SLOPE_CAP_FACTOR = 1e6;
@@ -57,11 +58,6 @@ export function finiteSlope(src: BakeSource, i: number, t: number, side: 1 | -1,
   return Number.isFinite(s) ? s : 0;
 }
 
-/** Whether finiteSlope can replace a derivative of segment i anywhere its |f'| may reach `maxAbs`. */
-export function mayReplace(src: BakeSource, i: number, maxAbs: number): boolean {
-  return !(maxAbs <= slopeCaps(src)[i]);
-}
-
 /**
  * Times where the source's derivative is infinite or beyond the slope cap: segment ends and inner cuts
  * of shape/bezier segments (for error messages).
@@ -90,4 +86,23 @@ export function verticalTangents(src: BakeSource): number[] {
     }
   }
   return [...new Set(out)].sort((x, y) => x - y);
+}
+
+/**
+ * A uniform entry's slope at t: the mean of the one-sided slopes when `br` is a break exactly at t (with a
+ * right segment), else the segment's slope (0 outside [S₀, S_N)); the last entry takes the last segment's
+ * slope. Each is made finite by finiteSlope, with the secant over ⅛ of the grid step `step`: for f ≈ c·√u
+ * (circ, a bezier handle with dx/ds = 0) the Hermite interval [0, H] with m0 = c/√(H/8) ≈ 2.8·(secant
+ * over H) is within a few % of the best m0 (max error ≈ 0.105·c·√H against 0.23·c·√H with the plain
+ * secant; measured by dense sampling).
+ */
+export function entrySlope(src: BakeSource, t: number, seg: number, br: Break | null, last: boolean, lastSegment: number, step: number): number {
+  const S = src.times;
+  const w = 0.125 * step;
+  if (last) {
+    const te = Math.min(t, S[S.length - 1]);
+    return finiteSlope(src, lastSegment, te, -1, src.value(lastSegment, te, 1), w);
+  }
+  if (br) return 0.5 * (finiteSlope(src, br.left, t, -1, src.value(br.left, t, 1), w) + finiteSlope(src, br.right, t, 1, src.value(br.right, t, 1), w));
+  return seg >= 0 ? finiteSlope(src, seg, t, 1, src.value(seg, t, 1), w) : 0;
 }

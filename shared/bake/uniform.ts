@@ -15,19 +15,24 @@
  *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break); where that derivative is not finite
- * (a vertical tangent) the secant over ⅛ grid step into the segment (./slopes.ts finiteSlope).
+ * (a vertical tangent) the secant over ⅛ grid step into the segment (./slopes.ts entrySlope). Inside a
+ * bezier or shape segment the value and slope are read from the segment's cubic stand-in (./proxy.ts,
+ * within ε ≤ 2.5 % of the tolerance of the source; the measure certifies the table against the source
+ * itself), a few operations instead of a time solve or a transcendental function per entry; on a
+ * sliver next to a vertical tangent, on a break and at the end they come from the source as above.
  */
 import type { BakeSource } from './source';
 import { firstNonEmpty } from './source';
 import { minMax, makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { measureError, type ErrorMeasure } from './measure';
+import { measureError, proxyDistance, type ErrorMeasure } from './measure';
+import { proxyFor, hasSampledSegments, CUBIC, type Proxy } from './proxy';
 import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { LazyTrials, entrySlope } from './uniform-trial';
+import { entrySlope } from './slopes';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -49,26 +54,31 @@ const MAX_ROUNDS = 32;
 
 export interface UniformResult { table: Table; measure: ErrorMeasure; tried: Map<number, number> }
 
-/** The uniform table of n entries (exact knot data, then encoded). */
-export function uniformTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): Table {
-  const S = src.times;
-  const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
-  const times = uniformTimes_(A, B, n);
-  const values = new Float64Array(n);
-  const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
-  uniformData(src, times, values, slopes, breaks);
-  return assembleTable_(profile, times, null, values, slopes);
+/**
+ * The cubic stand-ins the entries of a sampled source are read from at tolerance `tol` (./proxy.ts), or
+ * null for a source of polynomial segments only.
+ */
+export function entryProxy(src: BakeSource, tol: number): Proxy | null {
+  return hasSampledSegments(src) ? proxyFor(src, proxyDistance(tol)) : null;
 }
 
-/** uniformTable, with the exact entry values and the segment of each (−2 outside [S₀, S_N)) for MeasureOptions.knotValues. */
-function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): { table: Table; values: Float64Array; segs: Int32Array } {
+/**
+ * The uniform table of n entries (knot data, then encoded), as bakeUniform builds it for tolerance `tol`
+ * (which decides the stand-ins a sampled source's entries are read from; without it they are the source's).
+ */
+export function uniformTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], tol?: number): Table {
+  return uniformTableWithKnots(src, profile, n, breaks, tol === undefined ? null : entryProxy(src, tol)).table;
+}
+
+/** uniformTable, with the entry values and the segment of each (−2 where not the source's own value) for MeasureOptions.knotValues. */
+function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): { table: Table; values: Float64Array; segs: Int32Array } {
   const S = src.times;
   const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
   const times = uniformTimes_(A, B, n);
   const values = new Float64Array(n);
   const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
   const segs = new Int32Array(n);
-  uniformData(src, times, values, slopes, breaks, segs);
+  uniformData(src, times, values, slopes, breaks, segs, proxy);
   return { table: assembleTable_(profile, times, null, values, slopes), values, segs };
 }
 
@@ -78,7 +88,7 @@ function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, bre
  * segment holding t_k is found by walking forward (the same segment sourceValue's binary search finds:
  * the largest i < n with S_i ≤ t_k), so each entry costs one evaluation.
  */
-function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array): void {
+function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array, proxy?: Proxy | null): void {
   const S = src.times;
   const ns = S.length - 1;
   const n = times.length;
@@ -88,21 +98,35 @@ function uniformData(src: BakeSource, times: Float64Array, values: Float64Array,
   // the grid step (entrySlope takes a vertical tangent's secant over ⅛ of it: ./slopes.ts)
   const w = (times[n - 1] - times[0]) / (n - 1);
   const ls = lastSeg(src);
+  // stand-in leaves (sampled segments only): the leaf holding t, found by walking forward with t
+  const P = proxy ?? null;
+  let leaf = 0;
   for (let k = 0; k < n; k++) {
     const t = times[k];
     let seg = -1;
+    let fromLeaf = false, m = 0;
     if (t < S0) values[k] = src.value(firstNonEmpty_(src), S0, 0);
     else if (t >= SN) values[k] = src.endValue;
     else {
       while (i + 1 < ns && S[i + 1] <= t) i++;
       seg = i;
-      values[k] = src.value(i, t, 0);
+      if (P && P.first[i] < P.first[i + 1]) {
+        if (leaf < P.first[i]) leaf = P.first[i];
+        while (leaf + 1 < P.first[i + 1] && P.b[leaf] <= t) leaf++;
+        if (P.kind[leaf] === CUBIC) {
+          const o = 4 * leaf, c = P.c, u = t - P.a[leaf];
+          values[k] = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
+          m = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
+          fromLeaf = true;
+        }
+      }
+      if (!fromLeaf) values[k] = src.value(i, t, 0);
     }
-    if (segs) segs[k] = seg >= 0 ? seg : -2;
+    if (segs) segs[k] = seg >= 0 && !fromLeaf ? seg : -2;
     if (slopes) {
       while (b < breaks.length && breaks[b].time < t) b++;
       const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
-      slopes[k] = entrySlope_(src, t, seg, br, k === n - 1, ls, w);
+      slopes[k] = fromLeaf && !br && k !== n - 1 ? m : entrySlope_(src, t, seg, br, k === n - 1, ls, w);
     }
   }
 }
@@ -131,7 +155,7 @@ function roundTripInPlace(q: Quantizer, xs: Float64Array): void {
  * quantizers from the same min/max), in reused buffers; valid until the next call. Throws as
  * uniformTable does (f16 overflow).
  */
-function trialTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[]): Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> {
+function trialTable(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> {
   if (bufT.length < n) {
     const m = Math.max(n, 2 * bufT.length, 64);
     bufT = new Float64Array(m); bufV = new Float64Array(m); bufM = new Float64Array(m);
@@ -144,7 +168,7 @@ function trialTable(src: BakeSource, profile: Profile, n: number, breaks: readon
   times[n - 1] = B;
   const values = bufV.subarray(0, n);
   const slopes = profile.kernel === 'hermite' ? bufM.subarray(0, n) : null;
-  uniformData(src, times, values, slopes, breaks);
+  uniformData(src, times, values, slopes, breaks, undefined, proxy);
   const e = profile.encoding;
   const [vlo, vhi] = minMax_(values);
   const qv = makeQuantizer_(e, vlo, vhi);
@@ -186,33 +210,16 @@ export function bakeUniform(
   // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
   let failAt = Number.NaN;
   const opts = { tolerance: tol };
-  // lazy trials (./uniform-trial.ts) where the source is sampled (bezier, shapes): evaluations are costly there
-  let sampledSource = false;
-  for (let i = 0; i + 1 < S.length; i++) if (S[i + 1] > S[i] && !src.poly(i)) sampledSource = true;
-  const lazy = sampledSource && LazyTrials.applies(profile) ? new LazyTrials(src, profile, breaks) : null;
+  // a sampled source's entries are read from its cubic stand-ins (./proxy.ts): a few operations each
+  const proxy = entryProxy(src, tol);
   // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
     let e = Infinity;
-    if (lazy) {
-      const hasWindow = !Number.isNaN(failAt);
-      const w = (4 * (B - A)) / Math.max(1, n - 1);
-      const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
-      try {
-        const r = lazy.run(n, wa, wb, hasWindow, tol,
-          (v, knotValues, knotSegments) => measureError_(src, v, { ...winOpts, knotValues, knotSegments }, wa, wb).certified,
-          (v, knotValues, knotSegments) => { const m = measureError_(src, v, { ...estOpts, knotValues, knotSegments }); return { e: m.certified, at: m.at }; });
-        e = r.e;
-        if (r.fullAt !== null && e > tol) failAt = r.fullAt;
-      } catch { e = Infinity; }
-      estimates.set(n, e);
-      if (e > tol) tried.set(n, Infinity);
-      return e <= tol;
-    }
     let table: Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> | null;
-    try { table = trialTable(src, profile, n, breaks); } catch { table = null; }
+    try { table = trialTable(src, profile, n, breaks, proxy); } catch { table = null; }
     if (table) {
       // look first around the last failure: a window of a few entries there rejects most counts at once
       // (every sample is a true error, so a window above tol is a proof that the whole table fails)
@@ -234,7 +241,7 @@ export function bakeUniform(
   const certify = (idx: number): boolean => {
     const n = cand.at(idx);
     let built: { table: Table; values: Float64Array; segs: Int32Array } | null;
-    try { built = uniformTableWithKnots(src, profile, n, breaks); } catch { built = null; }
+    try { built = uniformTableWithKnots(src, profile, n, breaks, proxy); } catch { built = null; }
     if (!built) { tried.set(n, Infinity); return false; }
     const table = built.table;
     const measure = measureError_(src, table, { ...opts, knotValues: built.values, knotSegments: built.segs });
