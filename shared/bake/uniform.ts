@@ -22,8 +22,7 @@
  * sliver next to a vertical tangent, on a break and at the end they come from the source as above.
  */
 import type { BakeSource } from './source';
-import { firstNonEmpty } from './source';
-import { minMax, makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
+import { minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
 import { measureError, proxyDistance, type ErrorMeasure } from './measure';
@@ -32,20 +31,17 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { entrySlope } from './slopes';
+import { fillEntries, roundTrip, WindowTrials } from './entries';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
 const measureError_ = measureError;
 const uniformTimes_ = uniformTimes;
 const assembleTable_ = assembleTable;
-const firstNonEmpty_ = firstNonEmpty;
 const minMax_ = minMax;
 const makeQuantizer_ = makeQuantizer;
-const encodeOne_ = encodeOne;
-const decodeOne_ = decodeOne;
-const unormMax_ = unormMax;
-const entrySlope_ = entrySlope;
+const fillEntries_ = fillEntries;
+const roundTrip_ = roundTrip;
 
 export const MAX_UNIFORM_ENTRIES = 4096;
 const SCAN_BELOW = 8;
@@ -78,77 +74,12 @@ function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, bre
   const values = new Float64Array(n);
   const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
   const segs = new Int32Array(n);
-  uniformData(src, times, values, slopes, breaks, segs, proxy);
+  fillEntries_(src, proxy, times, values, slopes, breaks, segs);
   return { table: assembleTable_(profile, times, null, values, slopes), values, segs };
-}
-
-/**
- * Exact entry data of a uniform table at `times`: values[k] = sourceValue(t_k), slopes[k] as documented
- * at the top (mean of the one-sided slopes on a slope break, the last segment's slope at the end). The
- * segment holding t_k is found by walking forward (the same segment sourceValue's binary search finds:
- * the largest i < n with S_i ≤ t_k), so each entry costs one evaluation.
- */
-function uniformData(src: BakeSource, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array, proxy?: Proxy | null): void {
-  const S = src.times;
-  const ns = S.length - 1;
-  const n = times.length;
-  const S0 = S[0], SN = S[ns];
-  let i = 0;
-  let b = 0;
-  // the grid step (entrySlope takes a vertical tangent's secant over ⅛ of it: ./slopes.ts)
-  const w = (times[n - 1] - times[0]) / (n - 1);
-  const ls = lastSeg(src);
-  // stand-in leaves (sampled segments only): the leaf holding t, found by walking forward with t
-  const P = proxy ?? null;
-  let leaf = 0;
-  for (let k = 0; k < n; k++) {
-    const t = times[k];
-    let seg = -1;
-    let fromLeaf = false, m = 0;
-    if (t < S0) values[k] = src.value(firstNonEmpty_(src), S0, 0);
-    else if (t >= SN) values[k] = src.endValue;
-    else {
-      while (i + 1 < ns && S[i + 1] <= t) i++;
-      seg = i;
-      if (P && P.first[i] < P.first[i + 1]) {
-        if (leaf < P.first[i]) leaf = P.first[i];
-        while (leaf + 1 < P.first[i + 1] && P.b[leaf] <= t) leaf++;
-        if (P.kind[leaf] === CUBIC) {
-          const o = 4 * leaf, c = P.c, u = t - P.a[leaf];
-          values[k] = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
-          m = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
-          fromLeaf = true;
-        }
-      }
-      if (!fromLeaf) values[k] = src.value(i, t, 0);
-    }
-    if (segs) segs[k] = seg >= 0 && !fromLeaf ? seg : -2;
-    if (slopes) {
-      while (b < breaks.length && breaks[b].time < t) b++;
-      const br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
-      slopes[k] = fromLeaf && !br && k !== n - 1 ? m : entrySlope_(src, t, seg, br, k === n - 1, ls, w);
-    }
-  }
 }
 
 /** Reused buffers of the trial tables the search measures and throws away (grown on demand). */
 let bufT = new Float64Array(0), bufV = new Float64Array(0), bufM = new Float64Array(0);
-
-/** decodeOne(q, encodeOne(q, x)) for every x, in place (the same arithmetic, no codes kept). */
-function roundTripInPlace(q: Quantizer, xs: Float64Array): void {
-  const n = xs.length;
-  if (q.encoding === 'f32') { for (let j = 0; j < n; j++) xs[j] = Math.fround(xs[j]); return; }
-  if (q.encoding === 'f16') { for (let j = 0; j < n; j++) xs[j] = decodeOne_(q, encodeOne_(q, xs[j])); return; }
-  const M = unormMax_(q.encoding), off = q.offset, sc = q.scale;
-  for (let j = 0; j < n; j++) {
-    let c = 0;
-    if (sc !== 0) {
-      c = Math.round(((xs[j] - off) / sc) * M);
-      c = c < 0 ? 0 : c > M ? M : c;
-    }
-    xs[j] = off + sc * (c / M);
-  }
-}
 
 /**
  * A trial table of n entries: the same decoded times, values and slopes as uniformTable(…, n, …) (same
@@ -168,21 +99,15 @@ function trialTable(src: BakeSource, profile: Profile, n: number, breaks: readon
   times[n - 1] = B;
   const values = bufV.subarray(0, n);
   const slopes = profile.kernel === 'hermite' ? bufM.subarray(0, n) : null;
-  uniformData(src, times, values, slopes, breaks, undefined, proxy);
+  fillEntries_(src, proxy, times, values, slopes, breaks);
   const e = profile.encoding;
   const [vlo, vhi] = minMax_(values);
   const qv = makeQuantizer_(e, vlo, vhi);
   let qm: Quantizer | null = null;
   if (slopes) { const [slo, shi] = minMax_(slopes); qm = makeQuantizer_(e, slo, shi); }
-  roundTripInPlace(qv, values);
-  if (slopes) roundTripInPlace(qm!, slopes);
+  roundTrip_(qv, values, 0, n);
+  if (slopes) roundTrip_(qm!, slopes, 0, n);
   return { kernel: profile.kernel, times, values, slopes };
-}
-
-function lastSeg(src: BakeSource): number {
-  const T = src.times;
-  for (let i = T.length - 2; i >= 0; i--) if (T[i + 1] > T[i]) return i;
-  return 0;
 }
 
 /** Smallest uniform table within `tol`, or an error message naming the curve and the reason. */
@@ -212,12 +137,27 @@ export function bakeUniform(
   const opts = { tolerance: tol };
   // a sampled source's entries are read from its cubic stand-ins (./proxy.ts): a few operations each
   const proxy = entryProxy(src, tol);
+  // trial tables that fill only the entries a window measure reads (./entries.ts)
+  const trials = WindowTrials.applies(profile) ? new WindowTrials(src, profile, breaks, proxy) : null;
   // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
     let e = Infinity;
+    if (trials) {
+      const hasWindow = !Number.isNaN(failAt);
+      const w = (4 * (B - A)) / Math.max(1, n - 1);
+      const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
+      const r = trials.run(n, wa, wb, hasWindow, tol,
+        (v) => measureError_(src, v, winOpts, wa, wb).certified,
+        (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
+      e = r.e;
+      if (r.fullAt !== null && e > tol) failAt = r.fullAt;
+      estimates.set(n, e);
+      if (e > tol) tried.set(n, Infinity);
+      return e <= tol;
+    }
     let table: Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> | null;
     try { table = trialTable(src, profile, n, breaks, proxy); } catch { table = null; }
     if (table) {

@@ -1,0 +1,368 @@
+/**
+ * The entries of a uniform table: the value (and slope) each entry takes, and trial tables of the
+ * uniform search that evaluate only the entries a measurement can read.
+ *
+ * An entry at t in segment i takes the value of the segment's cubic stand-in leaf holding t (./proxy.ts)
+ * where there is one, else the source's own value (right-continuous; the start value before the domain,
+ * the end value from its end on). Its slope is the leaf's derivative, else the source's (./slopes.ts
+ * entrySlope: the mean of both sides on a break, the last segment's at the end, made finite).
+ *
+ * Window trials. Most trial counts of the search are rejected by a window of a few entries around the
+ * last failure, so a trial first fills only the window's entries. For unorm encodings the quantizer's
+ * offset and scale come from the minimum and maximum over all entries, which are found exactly without
+ * filling the table: the domain is cut once per curve into pieces (each stand-in leaf; 8 pieces per
+ * polynomial segment), each with the exact range of the value and slope functions its entries are
+ * read from (the cubic's extremes: ends and critical points, widened by far more than rounding). Pieces
+ * are visited by increasing lower (decreasing upper) bound; once a piece's lower bound is above the
+ * smallest value found so far, no entry there or in any later piece can be the minimum (likewise for the
+ * maximum). Entries whose numbers do not come from a piece's function (outside the domain, on a break, the
+ * last entry, on a sliver without a cubic) are always evaluated. So the quantizer, and every number a
+ * measurement reads, is the one the fully built table holds: the search is unchanged, only cheaper.
+ */
+import type { BakeSource } from './source';
+import { firstNonEmpty } from './source';
+import type { Break } from './breaks';
+import type { Profile } from './profile';
+import type { Table } from './table';
+import { CUBIC, type Proxy } from './proxy';
+import { entrySlope } from './slopes';
+import { makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
+
+const entrySlope_ = entrySlope;
+const firstNonEmpty_ = firstNonEmpty;
+const makeQuantizer_ = makeQuantizer;
+const encodeOne_ = encodeOne;
+const decodeOne_ = decodeOne;
+const unormMax_ = unormMax;
+
+export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
+
+/** Index of the last non-empty segment (the end entry's slope comes from it). */
+export function lastSegment(src: BakeSource): number {
+  const T = src.times;
+  for (let i = T.length - 2; i >= 0; i--) if (T[i + 1] > T[i]) return i;
+  return 0;
+}
+
+/** Where entryAt writes: the value, the slope, and whether the value is the source's own (not a stand-in's). */
+export const ENTRY = { value: 0, slope: 0, own: false };
+
+/**
+ * The value (and, with `slope`, the slope) of the entry at t: seg is the segment holding t (−1 outside
+ * [S₀, S_N)), leaf the stand-in leaf holding t (−1 when none), br the break exactly at t with a right
+ * segment (or null), last whether it is the last entry, ls the last non-empty segment, w the grid step.
+ */
+export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number, leaf: number, br: Break | null, last: boolean, ls: number, w: number, slope: boolean): void {
+  let m = 0, fromLeaf = false;
+  if (seg < 0) ENTRY.value = t < src.times[0] ? src.value(firstNonEmpty_(src), src.times[0], 0) : src.endValue;
+  else if (leaf >= 0 && P!.kind[leaf] === CUBIC) {
+    const o = 4 * leaf, c = P!.c, u = t - P!.a[leaf];
+    ENTRY.value = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
+    m = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
+    fromLeaf = true;
+  } else ENTRY.value = src.value(seg, t, 0);
+  ENTRY.own = seg >= 0 && !fromLeaf;
+  if (slope) ENTRY.slope = fromLeaf && !br && !last ? m : entrySlope_(src, t, seg, br, last, ls, w);
+}
+
+/**
+ * Every entry at `times` (increasing): values, slopes (null for linear) and, with segs, the segment of
+ * each entry whose value is the source's own (−2 otherwise, for MeasureOptions.knotValues). Segments,
+ * leaves and breaks are found by walking forward with t.
+ */
+export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array): void {
+  const S = src.times, ns = S.length - 1, n = times.length;
+  const S0 = S[0], SN = S[ns];
+  const w = (times[n - 1] - times[0]) / (n - 1);
+  const ls = lastSegment(src);
+  let i = 0, b = 0, leaf = 0;
+  for (let k = 0; k < n; k++) {
+    const t = times[k];
+    let seg = -1, lf = -1;
+    if (t >= S0 && t < SN) {
+      while (i + 1 < ns && S[i + 1] <= t) i++;
+      seg = i;
+      if (P && P.first[i] < P.first[i + 1]) {
+        if (leaf < P.first[i]) leaf = P.first[i];
+        while (leaf + 1 < P.first[i + 1] && P.b[leaf] <= t) leaf++;
+        lf = leaf;
+      }
+    }
+    let br: Break | null = null;
+    if (slopes) {
+      while (b < breaks.length && breaks[b].time < t) b++;
+      br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
+    }
+    entryAt(src, P, t, seg, lf, br, k === n - 1, ls, w, slopes !== null);
+    values[k] = ENTRY.value;
+    if (slopes) slopes[k] = ENTRY.slope;
+    if (segs) segs[k] = ENTRY.own ? seg : -2;
+  }
+}
+
+/** decodeOne(q, encodeOne(q, x)) for xs[from..to), in place (the same arithmetic as encodeArray). */
+export function roundTrip(q: Quantizer, xs: Float64Array, from: number, to: number): void {
+  if (q.encoding === 'f32') { for (let j = from; j < to; j++) xs[j] = Math.fround(xs[j]); return; }
+  if (q.encoding === 'f16') { for (let j = from; j < to; j++) xs[j] = decodeOne_(q, encodeOne_(q, xs[j])); return; }
+  const M = unormMax_(q.encoding), off = q.offset, sc = q.scale;
+  for (let j = from; j < to; j++) {
+    let c = 0;
+    if (sc !== 0) {
+      c = Math.round(((xs[j] - off) / sc) * M);
+      c = c < 0 ? 0 : c > M ? M : c;
+    }
+    xs[j] = off + sc * (c / M);
+  }
+}
+
+/** [min, max] of c0 + c1·u + c2·u² + c3·u³ over u ∈ [0, L] (ends and the roots of the derivative), widened, into R[at], R[at + 1]. */
+function cubicRange(c0: number, c1: number, c2: number, c3: number, L: number, R: Float64Array, at: number): void {
+  const fL = c0 + L * (c1 + L * (c2 + L * c3));
+  let lo = c0 < fL ? c0 : fL, hi = c0 < fL ? fL : c0;
+  const a = 3 * c3, b = 2 * c2, c = c1;
+  let r1 = -1, r2 = -1;
+  if (a !== 0) {
+    const d = b * b - 4 * a * c;
+    if (d >= 0) {
+      const q = -0.5 * (b + (b >= 0 ? Math.sqrt(d) : -Math.sqrt(d)));
+      if (q !== 0) { r1 = q / a; r2 = c / q; }
+    }
+  } else if (b !== 0) r1 = -c / b;
+  if (r1 > 0 && r1 < L) { const v = c0 + r1 * (c1 + r1 * (c2 + r1 * c3)); if (v < lo) lo = v; if (v > hi) hi = v; }
+  if (r2 > 0 && r2 < L) { const v = c0 + r2 * (c1 + r2 * (c2 + r2 * c3)); if (v < lo) lo = v; if (v > hi) hi = v; }
+  // margin: far above the rounding of Horner's rule on these terms (a few ulps of their sum)
+  const marg = 1e-12 * (Math.abs(c0) + Math.abs(c1) * L + Math.abs(c2) * L * L + Math.abs(c3) * L * L * L) + 1e-300;
+  R[at] = lo === lo ? lo - marg : -Infinity;
+  R[at + 1] = hi === hi ? hi + marg : Infinity;
+}
+
+/** Polynomial segments are cut into this many pieces for the brackets. */
+const POLY_PIECES = 8;
+
+interface Pieces {
+  count: number;
+  a: Float64Array;
+  b: Float64Array;
+  /** [lo, hi] per piece: values at 2q, 2q + 1; slopes in the same layout. */
+  values: Float64Array;
+  slopes: Float64Array;
+  /** Piece order by increasing lower bound / decreasing upper bound, for values and slopes. */
+  vLo: Int32Array; vHi: Int32Array; mLo: Int32Array; mHi: Int32Array;
+}
+
+function makePieces(src: BakeSource, P: Proxy | null): Pieces {
+  const S = src.times, ns = S.length - 1;
+  const a: number[] = [], b: number[] = [], vr: number[] = [], mr: number[] = [];
+  const R = new Float64Array(2);
+  for (let i = 0; i < ns; i++) {
+    const s0 = S[i], s1 = S[i + 1];
+    if (!(s1 > s0)) continue;
+    const poly = src.poly(i);
+    if (poly) {
+      for (let j = 0; j < POLY_PIECES; j++) {
+        const x0 = j === 0 ? s0 : s0 + ((s1 - s0) * j) / POLY_PIECES, x1 = j === POLY_PIECES - 1 ? s1 : s0 + ((s1 - s0) * (j + 1)) / POLY_PIECES;
+        a.push(x0); b.push(x1);
+        // the polynomial about its own origin, shifted to x0 (exact shift in doubles is not needed: widened)
+        const u0 = x0 - s0, L = x1 - x0;
+        const c0 = poly[0] + u0 * (poly[1] + u0 * (poly[2] + u0 * poly[3]));
+        const c1 = poly[1] + u0 * (2 * poly[2] + 3 * u0 * poly[3]);
+        const c2 = poly[2] + 3 * u0 * poly[3];
+        const c3 = poly[3];
+        cubicRange(c0, c1, c2, c3, L, R, 0);
+        // widen by the shift's rounding too (u0 up to the segment length)
+        const wid = 1e-12 * (Math.abs(poly[0]) + (Math.abs(poly[1]) + (Math.abs(poly[2]) + Math.abs(poly[3]) * (s1 - s0)) * (s1 - s0)) * (s1 - s0));
+        vr.push(R[0] - wid, R[1] + wid);
+        cubicRange(c1, 2 * c2, 3 * c3, 0, L, R, 0);
+        const widM = 1e-12 * (Math.abs(poly[1]) + (2 * Math.abs(poly[2]) + 3 * Math.abs(poly[3]) * (s1 - s0)) * (s1 - s0));
+        mr.push(R[0] - widM, R[1] + widM);
+      }
+    } else if (P) {
+      for (let k = P.first[i]; k < P.first[i + 1]; k++) {
+        a.push(P.a[k]); b.push(P.b[k]);
+        if (P.kind[k] !== CUBIC) { vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity); continue; }
+        const o = 4 * k, c = P.c, L = P.b[k] - P.a[k];
+        cubicRange(c[o], c[o + 1], c[o + 2], c[o + 3], L, R, 0);
+        vr.push(R[0], R[1]);
+        cubicRange(c[o + 1], 2 * c[o + 2], 3 * c[o + 3], 0, L, R, 0);
+        mr.push(R[0], R[1]);
+      }
+    } else {
+      a.push(s0); b.push(s1); vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity);
+    }
+  }
+  const count = a.length;
+  const V = Float64Array.from(vr), M = Float64Array.from(mr);
+  const idx = (): Int32Array => { const r = new Int32Array(count); for (let q = 0; q < count; q++) r[q] = q; return r; };
+  return {
+    count, a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
+    vLo: idx().sort((x, y) => V[2 * x] - V[2 * y] || x - y),
+    vHi: idx().sort((x, y) => V[2 * y + 1] - V[2 * x + 1] || x - y),
+    mLo: idx().sort((x, y) => M[2 * x] - M[2 * y] || x - y),
+    mHi: idx().sort((x, y) => M[2 * y + 1] - M[2 * x + 1] || x - y),
+  };
+}
+
+/** First index k < n with xs[k] ≥ x (n when none); xs sorted. */
+function lowerBound(xs: Float64Array, n: number, x: number): number {
+  let lo = 0, hi = n;
+  while (lo < hi) { const mid = (lo + hi) >> 1; if (xs[mid] < x) lo = mid + 1; else hi = mid; }
+  return lo;
+}
+
+/** Grow-only scratch buffers (one trial at a time). */
+let cap = 0;
+let T = new Float64Array(0), XV = new Float64Array(0), XM = new Float64Array(0), DV = new Float64Array(0), DM = new Float64Array(0);
+let HAVE = new Uint8Array(0);
+function ensure(n: number): void {
+  if (n > cap) {
+    cap = Math.max(n, 2 * cap, 64);
+    T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
+    HAVE = new Uint8Array(cap);
+  }
+}
+
+/** The running [min, max] of WindowTrials.extremes. */
+const EXT = new Float64Array(2);
+
+/** Decoded copies DV, DM of the entries XV, XM in [k0, k1). */
+function decode(qv: Quantizer, qm: Quantizer | null, k0: number, k1: number): void {
+  DV.set(XV.subarray(k0, k1), k0);
+  roundTrip(qv, DV, k0, k1);
+  if (qm) { DM.set(XM.subarray(k0, k1), k0); roundTrip(qm, DM, k0, k1); }
+}
+
+export interface TrialOutcome {
+  /** The estimate's figure (the window's when it rejected, else the whole table's). */
+  e: number;
+  /** Set when the whole table was measured: where its largest error is. */
+  fullAt: number | null;
+}
+
+/** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
+export class WindowTrials {
+  private readonly pieces: Pieces | null;
+  private readonly hermite: boolean;
+  private readonly ls: number;
+  private n = 0;
+  private h = 0;
+
+  static applies(profile: Profile): boolean {
+    return profile.encoding !== 'f16';
+  }
+
+  constructor(private readonly src: BakeSource, private readonly profile: Profile, private readonly breaks: readonly Break[], private readonly P: Proxy | null) {
+    this.hermite = profile.kernel === 'hermite';
+    this.pieces = profile.encoding === 'unorm8' || profile.encoding === 'unorm16' ? makePieces(src, P) : null;
+    this.ls = lastSegment(src);
+  }
+
+  /** Fill entry k (value and slope) if not yet filled, with the same numbers fillEntries gives. */
+  private fill(k: number): void {
+    if (HAVE[k]) return;
+    HAVE[k] = 1;
+    const src = this.src, S = src.times, ns = S.length - 1, P = this.P;
+    const t = T[k];
+    let seg = -1, lf = -1;
+    if (t >= S[0] && t < S[ns]) {
+      // the largest i < ns with S_i ≤ t (the segment fillEntries' walk reaches)
+      let lo = 0, hi = ns;
+      while (hi - lo > 1) { const mid = (lo + hi) >> 1; if (S[mid] <= t) lo = mid; else hi = mid; }
+      seg = lo;
+      if (P && P.first[seg] < P.first[seg + 1]) {
+        // the first leaf of the segment with b > t (else its last leaf)
+        let a = P.first[seg], z = P.first[seg + 1] - 1;
+        while (a < z) { const mid = (a + z) >> 1; if (P.b[mid] <= t) a = mid + 1; else z = mid; }
+        lf = a;
+      }
+    }
+    let br: Break | null = null;
+    if (this.hermite) {
+      const B = this.breaks;
+      let lo = 0, hi = B.length;
+      while (lo < hi) { const mid = (lo + hi) >> 1; if (B[mid].time < t) lo = mid + 1; else hi = mid; }
+      br = lo < B.length && B[lo].time === t && B[lo].right >= 0 ? B[lo] : null;
+    }
+    entryAt(src, P, t, seg, lf, br, k === this.n - 1, this.ls, this.h, this.hermite);
+    XV[k] = ENTRY.value;
+    if (this.hermite) XM[k] = ENTRY.slope;
+  }
+
+  /**
+   * One trial of n entries: `window(view)` first when hasWindow (the view is valid on the entries the
+   * window [wa, wb] reads); a figure above tol from it is the outcome, else every entry is filled and
+   * `full(view)` measures the whole table.
+   */
+  run(n: number, wa: number, wb: number, hasWindow: boolean, tol: number, window: (v: TrialView) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
+    const src = this.src, S = src.times, ns = S.length - 1;
+    ensure(n);
+    this.n = n;
+    const A = Math.fround(S[0]), B = Math.fround(S[ns]);
+    const h = (B - A) / (n - 1);
+    for (let k = 0; k < n; k++) T[k] = A + k * h;
+    T[n - 1] = B;
+    // fillEntries' grid step, from the stored times
+    this.h = (T[n - 1] - T[0]) / (n - 1);
+    HAVE.fill(0, 0, n);
+    const e = this.profile.encoding;
+    let qv: Quantizer, qm: Quantizer | null = null;
+    if (this.pieces) {
+      const [vlo, vhi] = this.extremes(0, n);
+      qv = makeQuantizer_(e, vlo, vhi);
+      if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
+    } else {
+      qv = makeQuantizer_(e, 0, 0);
+      if (this.hermite) qm = makeQuantizer_(e, 0, 0);
+    }
+    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
+    if (hasWindow) {
+      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb, and two more each side
+      const k0 = Math.max(0, lowerBound(T, n, wa) - 3), k1 = Math.min(n, lowerBound(T, n, wb) + 3);
+      for (let k = k0; k < k1; k++) this.fill(k);
+      decode(qv, qm, k0, k1);
+      const w = window(view);
+      if (w > tol) return { e: w, fullAt: null };
+    }
+    for (let k = 0; k < n; k++) this.fill(k);
+    decode(qv, qm, 0, n);
+    const m = full(view);
+    return { e: m.e, fullAt: m.at };
+  }
+
+  /** Exact [min, max] over the n entries of the values (o = 0) or slopes (o = 1), filling only where either can be. */
+  private extremes(o: 0 | 1, n: number): [number, number] {
+    const P = this.pieces!, X = o === 0 ? XV : XM, R = o === 0 ? P.values : P.slopes;
+    EXT[0] = Infinity; EXT[1] = -Infinity;
+    // entries not read from a piece's function: outside the domain, and for slopes the last entry and those on breaks
+    const S = this.src.times;
+    const kS0 = lowerBound(T, n, S[0]), kSN = lowerBound(T, n, S[S.length - 1]);
+    this.take(X, 0, kS0);
+    this.take(X, kSN, n);
+    if (o === 1) {
+      this.take(X, n - 1, n);
+      const B = this.breaks;
+      for (let j = 0; j < B.length; j++) { const k = lowerBound(T, n, B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
+    }
+    const byLo = o === 0 ? P.vLo : P.mLo, byHi = o === 0 ? P.vHi : P.mHi;
+    for (let r = 0; r < P.count; r++) {
+      const q = byLo[r];
+      if (R[2 * q] > EXT[0]) break;
+      this.take(X, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+    }
+    for (let r = 0; r < P.count; r++) {
+      const q = byHi[r];
+      if (R[2 * q + 1] < EXT[1]) break;
+      this.take(X, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+    }
+    return [EXT[0], EXT[1]];
+  }
+
+  /** Fill entries [k0, k1) and fold X there into EXT (NaN is left out, as minMax does). */
+  private take(X: Float64Array, k0: number, k1: number): void {
+    for (let k = k0; k < k1; k++) {
+      this.fill(k);
+      const x = X[k];
+      if (x < EXT[0]) EXT[0] = x;
+      if (x > EXT[1]) EXT[1] = x;
+    }
+  }
+}

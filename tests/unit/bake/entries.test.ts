@@ -1,0 +1,55 @@
+/**
+ * Window trials (shared/bake/entries.ts) read the same numbers as a fully built table: for random curves
+ * of every segment kind, unorm and f32 profiles and random counts, the entries a window trial fills, and
+ * all entries when it measures the whole table, equal the decoded entries of uniformTable for that count
+ * (which finds the unorm quantizer from the minimum and maximum of every entry).
+ */
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { DEMO_PROFILES, sourceFromDocument, type Profile } from '../../../shared/bake';
+import { WindowTrials, type TrialView } from '../../../shared/bake/entries';
+import { findBreaks } from '../../../shared/bake/breaks';
+import { entryProxy, uniformTable } from '../../../shared/bake/uniform';
+import { randomCurve, rng } from '../../../bench/library';
+
+const PROFILES: Profile[] = [
+  DEMO_PROFILES[1], // hermite unorm16
+  DEMO_PROFILES[2], // linear unorm8
+  { ...DEMO_PROFILES[1], name: 'h8', encoding: 'unorm8' },
+  { ...DEMO_PROFILES[1], name: 'hf32', encoding: 'f32' },
+];
+
+describe('window trials fill the numbers of the whole table', () => {
+  it('window entries and whole tables equal uniformTable for the same count (fast-check)', () => {
+    fc.assert(fc.property(
+      fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('step', 'linear', 'hermite', 'bezier', 'shape', undefined),
+      fc.integer({ min: 0, max: PROFILES.length - 1 }), fc.integer({ min: 2, max: 600 }), fc.double({ min: 0, max: 1, noNaN: true }),
+      (seed, kind, pi, n, where) => {
+        const doc = randomCurve(rng(seed), `w-${seed}`, kind as never, 6);
+        const src = sourceFromDocument(doc);
+        const p = PROFILES[pi];
+        const tol = 2e-3;
+        const br = findBreaks(src, 3);
+        let want;
+        try { want = uniformTable(src, p, n, br, tol); } catch { return; }
+        const trials = new WindowTrials(src, p, br, entryProxy(src, tol));
+        const A = src.times[0], B = src.times[src.times.length - 1];
+        const c = A + (B - A) * where, w = (4 * (B - A)) / (n - 1);
+        const wa = Math.max(A, c - w), wb = Math.min(B, c + w);
+        let windowChecked = 0;
+        const same = (v: TrialView, k: number) => {
+          expect(v.times[k]).toBe(want.times[k]);
+          expect(v.values[k]).toBe(want.values[k]);
+          if (p.kernel === 'hermite') expect(v.slopes![k]).toBe(want.slopes![k]);
+        };
+        trials.run(n, wa, wb, true, tol,
+          (v) => {
+            for (let k = 0; k < n; k++) if (v.times[k] >= wa && v.times[k] <= wb) { same(v, k); windowChecked++; }
+            return Infinity; // reject: the whole table is not filled
+          },
+          () => ({ e: 0, at: 0 }));
+        expect(windowChecked).toBeGreaterThan(0);
+        trials.run(n, wa, wb, false, tol, () => 0, (v) => { for (let k = 0; k < n; k++) same(v, k); return { e: 0, at: 0 }; });
+      }), { numRuns: 200, seed: 4242 });
+  });
+});
