@@ -26,7 +26,7 @@ import type { Profile } from './profile';
 import type { Table } from './table';
 import { CUBIC, type Proxy } from './proxy';
 import { entrySlope } from './slopes';
-import { makeQuantizer, encodeOne, decodeOne, unormMax, type Quantizer } from './encoding';
+import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, type Quantizer } from './encoding';
 
 const entrySlope_ = entrySlope;
 const firstNonEmpty_ = firstNonEmpty;
@@ -34,6 +34,7 @@ const makeQuantizer_ = makeQuantizer;
 const encodeOne_ = encodeOne;
 const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
+const minMax_ = minMax;
 
 export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
 
@@ -49,13 +50,20 @@ export const ENTRY = { value: 0, slope: 0, own: false };
 
 /**
  * The value (and, with `slope`, the slope) of the entry at t: seg is the segment holding t (−1 outside
- * [S₀, S_N)), leaf the stand-in leaf holding t (−1 when none), br the break exactly at t with a right
+ * [S₀, S_N)), poly its src.poly(seg), leaf the stand-in leaf holding t (−1 when none), br the break exactly at t with a right
  * segment (or null), last whether it is the last entry, ls the last non-empty segment, w the grid step.
  */
-export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number, leaf: number, br: Break | null, last: boolean, ls: number, w: number, slope: boolean): void {
+export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number, poly: Float64Array | null, leaf: number, br: Break | null, last: boolean, ls: number, w: number, slope: boolean): void {
   let m = 0, fromLeaf = false;
   if (seg < 0) ENTRY.value = t < src.times[0] ? src.value(firstNonEmpty_(src), src.times[0], 0) : src.endValue;
-  else if (leaf >= 0 && P!.kind[leaf] === CUBIC) {
+  else if (poly) {
+    // the segment's own cubic (value(seg, t, ·) is this polynomial: ./source.ts), inline; its slope is finite
+    const u = t - src.times[seg];
+    ENTRY.value = poly[0] + u * (poly[1] + u * (poly[2] + u * poly[3]));
+    ENTRY.own = true;
+    if (slope) ENTRY.slope = !br && !last ? poly[1] + u * (2 * poly[2] + 3 * u * poly[3]) : entrySlope_(src, t, seg, br, last, ls, w);
+    return;
+  } else if (leaf >= 0 && P!.kind[leaf] === CUBIC) {
     const o = 4 * leaf, c = P!.c, u = t - P!.a[leaf];
     ENTRY.value = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
     m = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
@@ -76,12 +84,14 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
   const w = (times[n - 1] - times[0]) / (n - 1);
   const ls = lastSegment(src);
   let i = 0, b = 0, leaf = 0;
+  let polyOf = -1, poly: Float64Array | null = null;
   for (let k = 0; k < n; k++) {
     const t = times[k];
     let seg = -1, lf = -1;
     if (t >= S0 && t < SN) {
       while (i + 1 < ns && S[i + 1] <= t) i++;
       seg = i;
+      if (polyOf !== i) { polyOf = i; poly = src.poly(i); }
       if (P && P.first[i] < P.first[i + 1]) {
         if (leaf < P.first[i]) leaf = P.first[i];
         while (leaf + 1 < P.first[i + 1] && P.b[leaf] <= t) leaf++;
@@ -93,7 +103,7 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
       while (b < breaks.length && breaks[b].time < t) b++;
       br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
     }
-    entryAt(src, P, t, seg, lf, br, k === n - 1, ls, w, slopes !== null);
+    entryAt(src, P, t, seg, seg >= 0 ? poly : null, lf, br, k === n - 1, ls, w, slopes !== null);
     values[k] = ENTRY.value;
     if (slopes) slopes[k] = ENTRY.slope;
     if (segs) segs[k] = ENTRY.own ? seg : -2;
@@ -282,7 +292,7 @@ export class WindowTrials {
       while (lo < hi) { const mid = (lo + hi) >> 1; if (B[mid].time < t) lo = mid + 1; else hi = mid; }
       br = lo < B.length && B[lo].time === t && B[lo].right >= 0 ? B[lo] : null;
     }
-    entryAt(src, P, t, seg, lf, br, k === this.n - 1, this.ls, this.h, this.hermite);
+    entryAt(src, P, t, seg, seg >= 0 ? src.poly(seg) : null, lf, br, k === this.n - 1, this.ls, this.h, this.hermite);
     XV[k] = ENTRY.value;
     if (this.hermite) XM[k] = ENTRY.slope;
   }
@@ -304,25 +314,33 @@ export class WindowTrials {
     this.h = (T[n - 1] - T[0]) / (n - 1);
     HAVE.fill(0, 0, n);
     const e = this.profile.encoding;
-    let qv: Quantizer, qm: Quantizer | null = null;
-    if (this.pieces) {
-      const [vlo, vhi] = this.extremes(0, n);
-      qv = makeQuantizer_(e, vlo, vhi);
-      if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
-    } else {
+    let qv: Quantizer | null = null, qm: Quantizer | null = null;
+    if (!this.pieces) {
       qv = makeQuantizer_(e, 0, 0);
       if (this.hermite) qm = makeQuantizer_(e, 0, 0);
     }
     const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     if (hasWindow) {
+      if (this.pieces) {
+        const [vlo, vhi] = this.extremes(0, n);
+        qv = makeQuantizer_(e, vlo, vhi);
+        if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
+      }
       // the entries the window measure reads: from the region holding wa to the first entry ≥ wb, and two more each side
       const k0 = Math.max(0, lowerBound(T, n, wa) - 3), k1 = Math.min(n, lowerBound(T, n, wb) + 3);
       for (let k = k0; k < k1; k++) this.fill(k);
-      decode(qv, qm, k0, k1);
+      decode(qv!, qm, k0, k1);
       const w = window(view);
       if (w > tol) return { e: w, fullAt: null };
     }
-    for (let k = 0; k < n; k++) this.fill(k);
+    // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
+    fillEntries(src, this.P, T.subarray(0, n), XV.subarray(0, n), this.hermite ? XM.subarray(0, n) : null, this.breaks);
+    if (!qv) {
+      // the extremes of every entry directly (the same numbers extremes() finds)
+      const [vlo, vhi] = minMax_(XV.subarray(0, n));
+      qv = makeQuantizer_(e, vlo, vhi);
+      if (this.hermite) { const [mlo, mhi] = minMax_(XM.subarray(0, n)); qm = makeQuantizer_(e, mlo, mhi); }
+    }
     decode(qv, qm, 0, n);
     const m = full(view);
     return { e: m.e, fullAt: m.at };

@@ -19,9 +19,13 @@ export const SLOPE_CAP_FACTOR = 1e6;
 const CAPS = new WeakMap<BakeSource, Float64Array>();
 
 /** Per-segment slope caps (Infinity for polynomial and empty segments), computed once per source. */
+/** The source slopeCaps answered last (entries of one table ask for the same source many times). */
+let lastSource: BakeSource | null = null, lastCaps: Float64Array | null = null;
+
 export function slopeCaps(src: BakeSource): Float64Array {
+  if (src === lastSource) return lastCaps!;
   let caps = CAPS.get(src);
-  if (caps) return caps;
+  if (caps) { lastSource = src; lastCaps = caps; return caps; }
   const S = src.times, ns = S.length - 1;
   caps = new Float64Array(ns).fill(Infinity);
   for (let i = 0; i < ns; i++) {
@@ -39,6 +43,7 @@ export function slopeCaps(src: BakeSource): Float64Array {
     caps[i] = (SLOPE_CAP_FACTOR * scale) / (b - a);
   }
   CAPS.set(src, caps);
+  lastSource = src; lastCaps = caps;
   return caps;
 }
 
