@@ -249,8 +249,13 @@ export interface TrialOutcome {
 }
 
 /** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
+/** Below this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece). */
+export const WINDOW_MIN_ENTRIES = 64;
+
 export class WindowTrials {
-  private readonly pieces: Pieces | null;
+  /** Built on the first window trial that needs the extremes (null: not yet, or not unorm). */
+  private pieces: Pieces | null = null;
+  private readonly unorm: boolean;
   private readonly hermite: boolean;
   private readonly ls: number;
   private n = 0;
@@ -262,7 +267,7 @@ export class WindowTrials {
 
   constructor(private readonly src: BakeSource, private readonly profile: Profile, private readonly breaks: readonly Break[], private readonly P: Proxy | null) {
     this.hermite = profile.kernel === 'hermite';
-    this.pieces = profile.encoding === 'unorm8' || profile.encoding === 'unorm16' ? makePieces(src, P) : null;
+    this.unorm = profile.encoding === 'unorm8' || profile.encoding === 'unorm16';
     this.ls = lastSegment(src);
   }
 
@@ -315,13 +320,14 @@ export class WindowTrials {
     HAVE.fill(0, 0, n);
     const e = this.profile.encoding;
     let qv: Quantizer | null = null, qm: Quantizer | null = null;
-    if (!this.pieces) {
+    if (!this.unorm) {
       qv = makeQuantizer_(e, 0, 0);
       if (this.hermite) qm = makeQuantizer_(e, 0, 0);
     }
     const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
-    if (hasWindow) {
-      if (this.pieces) {
+    if (hasWindow && n > WINDOW_MIN_ENTRIES) {
+      if (this.unorm) {
+        this.pieces ??= makePieces(src, this.P);
         const [vlo, vhi] = this.extremes(0, n);
         qv = makeQuantizer_(e, vlo, vhi);
         if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
