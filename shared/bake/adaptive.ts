@@ -47,11 +47,13 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
   const hermite = profile.kernel === 'hermite';
   // secant width of a knot whose source slope is not finite (a vertical tangent; ./slopes.ts)
   const SW = (B - A) * SECANT_FRACTION;
-  const vr = sourceRange(src, 0);
+  // unorm offset/scale from the source's ranges; f32 and f16 need no range (their quantizer ignores it)
+  const unorm = profile.encoding === 'unorm8' || profile.encoding === 'unorm16';
+  const vr = unorm ? sourceRange(src, 0) : { min: 0, max: 0 };
   const qv = makeQuantizer(profile.encoding, vr.min, vr.max);
   let qm: Quantizer | undefined;
   if (hermite) {
-    const mr = sourceRange(src, 1);
+    const mr = unorm ? sourceRange(src, 1) : { min: 0, max: 0 };
     qm = makeQuantizer(profile.encoding, mr.min, mr.max);
   }
   const rt = (q: Quantizer, x: number) => decodeOne(q, encodeOne(q, x));
