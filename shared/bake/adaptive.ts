@@ -20,7 +20,7 @@
 import type { BakeSource } from './source';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { measureError, type ErrorMeasure } from './measure';
+import { measureCertified, measureError, type ErrorMeasure } from './measure';
 import type { Table } from './table';
 import { assembleTable, leftSlope, leftValue, rightSlope, rightValue } from './knots';
 import { finiteSlope } from './slopes';
@@ -75,7 +75,7 @@ export function bakeAdaptive(src: BakeSource, profile: Profile, tol: number, bre
       VIEW_T[0] = a.stored; VIEW_T[1] = bStored;
       VIEW_V[0] = rt(qv, a.v); VIEW_V[1] = rt(qv, bv);
       if (hermite) { VIEW_M[0] = rt(qm!, a.m); VIEW_M[1] = rt(qm!, bm); }
-      const e = measureError(src, view, intervalOpts, a.stored, bStored === Math.fround(B) ? B : bStored).certified;
+      const e = measureCertified(src, view, intervalOpts, a.stored, bStored === Math.fround(B) ? B : bStored);
       return e === e ? e : Infinity;
     };
     const intervalOk = (a: Knot, bStored: number, bv: number, bm: number): boolean => intervalError(a, bStored, bv, bm) <= target;

@@ -260,6 +260,18 @@ function proxyPiece(
  * Allocation-free apart from the returned object.
  */
 export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): ErrorMeasure {
+  measureInto(src, tab, opts, from, to);
+  return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
+}
+
+/** measureError's `certified` figure alone, without allocating (searches that only compare it with a tolerance). */
+export function measureCertified(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): number {
+  measureInto(src, tab, opts, from, to);
+  return certified;
+}
+
+/** The measurement itself: leaves its figures in the module state (bestErr, bestAt, certified, sampledUsed). */
+function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): void {
   const S = src.times;
   const ns = S.length - 1;
   const A = from ?? S[0];
@@ -320,10 +332,9 @@ export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptio
     }
   }
   // the end point itself (a step into the last key shows only there)
-  if (certified > stopAbove) return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
+  if (certified > stopAbove) return;
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
     const e = Math.abs(src.endValue - evalTable_(tab, B));
     record(e, B, e);
   }
-  return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
 }

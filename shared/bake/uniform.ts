@@ -25,7 +25,7 @@ import type { BakeSource } from './source';
 import { minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { measureError, proxyDistance, type ErrorMeasure } from './measure';
+import { measureCertified, measureError, proxyDistance, type ErrorMeasure } from './measure';
 import { proxyFor, hasSampledSegments, CUBIC, type Proxy } from './proxy';
 import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
@@ -36,6 +36,7 @@ import { fillEntries, roundTrip, WindowTrials } from './entries';
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
 const measureError_ = measureError;
+const measureCertified_ = measureCertified;
 const uniformTimes_ = uniformTimes;
 const assembleTable_ = assembleTable;
 const minMax_ = minMax;
@@ -150,7 +151,7 @@ export function bakeUniform(
       const w = (4 * (B - A)) / Math.max(1, n - 1);
       const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
       const r = trials.run(n, wa, wb, hasWindow, tol,
-        (v) => measureError_(src, v, winOpts, wa, wb).certified,
+        (v) => measureCertified_(src, v, winOpts, wa, wb),
         (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
       e = r.e;
       if (r.fullAt !== null && e > tol) failAt = r.fullAt;
