@@ -89,10 +89,16 @@ class Leaves {
   }
 }
 
+/** The last leaf end evaluated while building (segment, time, value). */
+let lastSeg = -1, lastT = Number.NaN, lastV = 0;
+
 /** The cubic through f at a, a + h/3, a + 2h/3, b (Newton's divided differences, then power form in u = t − a). */
 function interpolate(src: BakeSource, i: number, a: number, b: number, L: Leaves, k: number, M4: number): void {
   const h = b - a, d = h / 3;
-  const f0 = src.value(i, a, 0), f1 = src.value(i, a + d, 0), f2 = src.value(i, a + 2 * d, 0), f3 = src.value(i, b, 0);
+  // a leaf starts where the previous one of the segment ended (the same double): its end value is reused
+  const f0 = i === lastSeg && a === lastT ? lastV : src.value(i, a, 0);
+  const f1 = src.value(i, a + d, 0), f2 = src.value(i, a + 2 * d, 0), f3 = src.value(i, b, 0);
+  lastSeg = i; lastT = b; lastV = f3;
   const D1 = (f1 - f0) / d;
   const D2 = (f2 - 2 * f1 + f0) / (2 * d * d);
   const D3 = (f3 - 3 * f2 + 3 * f1 - f0) / (6 * d * d * d);
@@ -126,6 +132,7 @@ function constant(src: BakeSource, i: number, a: number, b: number, L: Leaves): 
 }
 
 function buildProxy(src: BakeSource, eps: number): Proxy {
+  lastSeg = -1;
   const S = src.times, ns = S.length - 1;
   const first = new Int32Array(ns + 1);
   const L = new Leaves();
