@@ -136,8 +136,21 @@ function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
   SRC[0] = p[0]; SRC[1] = p[1]; SRC[2] = p[2]; SRC[3] = p[3];
   shiftCubic_(SRC, x0 - src.times[i]);
   DIFF[0] = SRC[0] - TAB[0]; DIFF[1] = SRC[1] - TAB[1]; DIFF[2] = SRC[2] - TAB[2]; DIFF[3] = SRC[3] - TAB[3];
+  // a piece whose error cannot reach the figures already found changes nothing (see cubicBound)
+  const ub = cubicBound(DIFF, x1 - x0);
+  if (ub <= bestErr && ub <= certified) return;
   const e = maxAbsCubic_(DIFF, x1 - x0);
   record(e, x0 + MAX_SLOT[1], e);
+}
+
+/**
+ * An upper bound of max |d(u)| over [0, L]: |d0| + |d1|·L + |d2|·L² + |d3|·L³ (triangle inequality),
+ * inflated by 1e-12 so it also covers the rounding of the exact maximum computed in doubles. A piece
+ * whose bound is at most both figures recorded so far cannot change them (record() keeps the first of
+ * equal errors), so skipping it leaves every result the same. NaN never skips.
+ */
+function cubicBound(d: Float64Array, L: number): number {
+  return (Math.abs(d[0]) + L * (Math.abs(d[1]) + L * (Math.abs(d[2]) + L * Math.abs(d[3])))) * (1 + 1e-12);
 }
 
 /**
@@ -242,6 +255,9 @@ function proxyPiece(
     TAB2[0] = TAB[0]; TAB2[1] = TAB[1]; TAB2[2] = TAB[2]; TAB2[3] = TAB[3];
     shiftCubic_(TAB2, y0 - x0);
     DIFF[0] = SRC[0] - TAB2[0]; DIFF[1] = SRC[1] - TAB2[1]; DIFF[2] = SRC[2] - TAB2[2]; DIFF[3] = SRC[3] - TAB2[3];
+    // skip a leaf whose figures cannot exceed those found so far (cubicBound); the estimate records e − ε, the proof e + ε
+    const ub = cubicBound(DIFF, y1 - y0);
+    if (estimate ? ub - E[k] <= bestErr && ub - E[k] <= certified : ub <= bestErr && ub + E[k] <= certified) continue;
     const e = maxAbsCubic_(DIFF, y1 - y0);
     const at = y0 + MAX_SLOT[1];
     if (estimate) {
