@@ -151,6 +151,9 @@ const POLY_PIECES = 8;
 
 interface Pieces {
   count: number;
+  /** The segment and the stand-in leaf (−1: none) each piece's entries lie in. */
+  seg: Int32Array;
+  leaf: Int32Array;
   a: Float64Array;
   b: Float64Array;
   /** [lo, hi] per piece: values at 2q, 2q + 1; slopes in the same layout. */
@@ -162,7 +165,7 @@ interface Pieces {
 
 function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   const S = src.times, ns = S.length - 1;
-  const a: number[] = [], b: number[] = [], vr: number[] = [], mr: number[] = [];
+  const a: number[] = [], b: number[] = [], vr: number[] = [], mr: number[] = [], sg: number[] = [], lf: number[] = [];
   const R = new Float64Array(2);
   for (let i = 0; i < ns; i++) {
     const s0 = S[i], s1 = S[i + 1];
@@ -171,7 +174,7 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
     if (poly) {
       for (let j = 0; j < POLY_PIECES; j++) {
         const x0 = j === 0 ? s0 : s0 + ((s1 - s0) * j) / POLY_PIECES, x1 = j === POLY_PIECES - 1 ? s1 : s0 + ((s1 - s0) * (j + 1)) / POLY_PIECES;
-        a.push(x0); b.push(x1);
+        a.push(x0); b.push(x1); sg.push(i); lf.push(-1);
         // the polynomial about its own origin, shifted to x0 (exact shift in doubles is not needed: widened)
         const u0 = x0 - s0, L = x1 - x0;
         const c0 = poly[0] + u0 * (poly[1] + u0 * (poly[2] + u0 * poly[3]));
@@ -188,7 +191,7 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
       }
     } else if (P) {
       for (let k = P.first[i]; k < P.first[i + 1]; k++) {
-        a.push(P.a[k]); b.push(P.b[k]);
+        a.push(P.a[k]); b.push(P.b[k]); sg.push(i); lf.push(k);
         if (P.kind[k] !== CUBIC) { vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity); continue; }
         const o = 4 * k, c = P.c, L = P.b[k] - P.a[k];
         cubicRange(c[o], c[o + 1], c[o + 2], c[o + 3], L, R, 0);
@@ -197,14 +200,14 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
         mr.push(R[0], R[1]);
       }
     } else {
-      a.push(s0); b.push(s1); vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity);
+      a.push(s0); b.push(s1); sg.push(i); lf.push(-1); vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity);
     }
   }
   const count = a.length;
   const V = Float64Array.from(vr), M = Float64Array.from(mr);
   const idx = (): Int32Array => { const r = new Int32Array(count); for (let q = 0; q < count; q++) r[q] = q; return r; };
   return {
-    count, a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
+    count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
     vLo: idx().sort((x, y) => V[2 * x] - V[2 * y] || x - y),
     vHi: idx().sort((x, y) => V[2 * y + 1] - V[2 * x + 1] || x - y),
     mLo: idx().sort((x, y) => M[2 * x] - M[2 * y] || x - y),
@@ -274,7 +277,6 @@ export class WindowTrials {
   /** Fill entry k (value and slope) if not yet filled, with the same numbers fillEntries gives. */
   private fill(k: number): void {
     if (HAVE[k]) return;
-    HAVE[k] = 1;
     const src = this.src, S = src.times, ns = S.length - 1, P = this.P;
     const t = T[k];
     let seg = -1, lf = -1;
@@ -290,6 +292,14 @@ export class WindowTrials {
         lf = a;
       }
     }
+    this.fillWith(k, seg, lf);
+  }
+
+  /** Fill entry k known to lie in segment seg (−1 outside the domain) and stand-in leaf lf (−1: none). */
+  private fillWith(k: number, seg: number, lf: number): void {
+    HAVE[k] = 1;
+    const src = this.src, P = this.P;
+    const t = T[k];
     let br: Break | null = null;
     if (this.hermite) {
       const B = this.breaks;
@@ -370,14 +380,25 @@ export class WindowTrials {
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];
       if (R[2 * q] > EXT[0]) break;
-      this.take(X, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
     }
     for (let r = 0; r < P.count; r++) {
       const q = byHi[r];
       if (R[2 * q + 1] < EXT[1]) break;
-      this.take(X, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
     }
     return [EXT[0], EXT[1]];
+  }
+
+  /** take() for the entries [k0, k1) of piece q (their segment and leaf are the piece's: no search). */
+  private takePiece(X: Float64Array, q: number, k0: number, k1: number): void {
+    const P = this.pieces!, seg = P.seg[q], lf = P.leaf[q];
+    for (let k = k0; k < k1; k++) {
+      if (!HAVE[k]) this.fillWith(k, seg, lf);
+      const x = X[k];
+      if (x < EXT[0]) EXT[0] = x;
+      if (x > EXT[1]) EXT[1] = x;
+    }
   }
 
   /** Fill entries [k0, k1) and fold X there into EXT (NaN is left out, as minMax does). */
