@@ -6,6 +6,7 @@ import { useTokens } from '../api/list-tokens';
 import { useCreateToken } from '../api/create-token';
 import { useRevokeToken } from '../api/revoke-token';
 import { TableHead } from '../../../components/table-head';
+import { EmptyRow } from '../../../components/empty-row';
 
 const when = (iso: string | null) => (iso ? iso.replace('T', ' ').slice(0, 16) + ' UTC' : '—');
 
@@ -88,13 +89,7 @@ export function TokensPanel({ teamId }: { teamId: string }) {
               </td>
             </tr>
           ))}
-          {tokens.data?.length === 0 ? (
-            <tr>
-              <td colSpan={5} className="py-3 text-ink/65 dark:text-paper/65">
-                No service tokens yet.
-              </td>
-            </tr>
-          ) : null}
+          {tokens.data?.length === 0 ? <EmptyRow span={5}>No service tokens yet.</EmptyRow> : null}
         </tbody>
       </table>
     </div>

@@ -5,6 +5,7 @@ import { useDeliveries } from '../api/list-deliveries';
 import { useRedeliver } from '../api/redeliver';
 import { DeliveryState } from './delivery-state';
 import { TableHead } from '../../../components/table-head';
+import { EmptyRow } from '../../../components/empty-row';
 
 const PER_PAGE = 10;
 const when = (iso: string) => iso.replace('T', ' ').slice(0, 19) + ' UTC';
@@ -57,13 +58,7 @@ export function DeliveriesTable({ teamId, webhookId, label, lastDelivery }: { te
                 </td>
               </tr>
             ))}
-            {list.data?.deliveries.length === 0 ? (
-              <tr>
-                <td colSpan={7} className="py-3 text-ink/65 dark:text-paper/65">
-                  Nothing sent yet. Send a test ping, or wait for the next proposal, review or release.
-                </td>
-              </tr>
-            ) : null}
+            {list.data?.deliveries.length === 0 ? <EmptyRow span={7}>Nothing sent yet. Send a test ping, or wait for the next proposal, review or release.</EmptyRow> : null}
           </tbody>
         </table>
       </div>

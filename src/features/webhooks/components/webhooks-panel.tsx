@@ -13,6 +13,7 @@ import { DeliveryState } from './delivery-state';
 import { SecretNotice } from './secret-notice';
 import { WebhookForm } from './webhook-form';
 import { TableHead } from '../../../components/table-head';
+import { EmptyRow } from '../../../components/empty-row';
 
 const when = (iso: string) => iso.replace('T', ' ').slice(0, 16) + ' UTC';
 
@@ -111,13 +112,7 @@ export function WebhooksPanel({ teamId }: { teamId: string }) {
                 </tr>
               );
             })}
-            {list.data && hooks.length === 0 ? (
-              <tr>
-                <td colSpan={5} className="py-3 text-ink/65 dark:text-paper/65">
-                  No webhooks yet.
-                </td>
-              </tr>
-            ) : null}
+            {list.data && hooks.length === 0 ? <EmptyRow span={5}>No webhooks yet.</EmptyRow> : null}
           </tbody>
         </table>
       </div>
