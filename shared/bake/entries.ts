@@ -159,6 +159,13 @@ interface Pieces {
   /** [lo, hi] per piece: values at 2q, 2q + 1; slopes in the same layout. */
   values: Float64Array;
   slopes: Float64Array;
+  /**
+   * 1 where every entry of the piece reads the same number from a constant function (a hold's values, a
+   * linear segment's slopes): the function's higher coefficients are exactly 0, so Horner's rule gives
+   * c + u·0 = c for every u ≥ 0. One entry then stands for all of the piece's entries in the extremes.
+   */
+  vFlat: Uint8Array;
+  mFlat: Uint8Array;
   /** Piece order by increasing lower bound / decreasing upper bound, for values and slopes. */
   vLo: Int32Array; vHi: Int32Array; mLo: Int32Array; mHi: Int32Array;
 }
@@ -166,6 +173,7 @@ interface Pieces {
 function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   const S = src.times, ns = S.length - 1;
   const a: number[] = [], b: number[] = [], vr: number[] = [], mr: number[] = [], sg: number[] = [], lf: number[] = [];
+  const vf: number[] = [], mf: number[] = [];
   const R = new Float64Array(2);
   for (let i = 0; i < ns; i++) {
     const s0 = S[i], s1 = S[i + 1];
@@ -175,6 +183,8 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
       for (let j = 0; j < POLY_PIECES; j++) {
         const x0 = j === 0 ? s0 : s0 + ((s1 - s0) * j) / POLY_PIECES, x1 = j === POLY_PIECES - 1 ? s1 : s0 + ((s1 - s0) * (j + 1)) / POLY_PIECES;
         a.push(x0); b.push(x1); sg.push(i); lf.push(-1);
+        vf.push(poly[1] === 0 && poly[2] === 0 && poly[3] === 0 ? 1 : 0);
+        mf.push(poly[2] === 0 && poly[3] === 0 ? 1 : 0);
         // the polynomial about its own origin, shifted to x0 (exact shift in doubles is not needed: widened)
         const u0 = x0 - s0, L = x1 - x0;
         const c0 = poly[0] + u0 * (poly[1] + u0 * (poly[2] + u0 * poly[3]));
@@ -192,8 +202,10 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
     } else if (P) {
       for (let k = P.first[i]; k < P.first[i + 1]; k++) {
         a.push(P.a[k]); b.push(P.b[k]); sg.push(i); lf.push(k);
-        if (P.kind[k] !== CUBIC) { vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity); continue; }
+        if (P.kind[k] !== CUBIC) { vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity); vf.push(0); mf.push(0); continue; }
         const o = 4 * k, c = P.c, L = P.b[k] - P.a[k];
+        vf.push(c[o + 1] === 0 && c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0);
+        mf.push(c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0);
         cubicRange(c[o], c[o + 1], c[o + 2], c[o + 3], L, R, 0);
         vr.push(R[0], R[1]);
         cubicRange(c[o + 1], 2 * c[o + 2], 3 * c[o + 3], 0, L, R, 0);
@@ -201,6 +213,7 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
       }
     } else {
       a.push(s0); b.push(s1); sg.push(i); lf.push(-1); vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity);
+      vf.push(0); mf.push(0);
     }
   }
   const count = a.length;
@@ -208,6 +221,7 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   const idx = (): Int32Array => { const r = new Int32Array(count); for (let q = 0; q < count; q++) r[q] = q; return r; };
   return {
     count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
+    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf),
     vLo: idx().sort((x, y) => V[2 * x] - V[2 * y] || x - y),
     vHi: idx().sort((x, y) => V[2 * y + 1] - V[2 * x + 1] || x - y),
     mLo: idx().sort((x, y) => M[2 * x] - M[2 * y] || x - y),
@@ -376,23 +390,31 @@ export class WindowTrials {
       const B = this.breaks;
       for (let j = 0; j < B.length; j++) { const k = lowerBound(T, n, B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
     }
-    const byLo = o === 0 ? P.vLo : P.mLo, byHi = o === 0 ? P.vHi : P.mHi;
+    const byLo = o === 0 ? P.vLo : P.mLo, byHi = o === 0 ? P.vHi : P.mHi, flat = o === 0 ? P.vFlat : P.mFlat;
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];
       if (R[2 * q] > EXT[0]) break;
-      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]), flat[q] === 1, n);
     }
     for (let r = 0; r < P.count; r++) {
       const q = byHi[r];
       if (R[2 * q + 1] < EXT[1]) break;
-      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]));
+      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]), flat[q] === 1, n);
     }
     return [EXT[0], EXT[1]];
   }
 
-  /** take() for the entries [k0, k1) of piece q (their segment and leaf are the piece's: no search). */
-  private takePiece(X: Float64Array, q: number, k0: number, k1: number): void {
+  /**
+   * take() for the entries [k0, k1) of piece q (their segment and leaf are the piece's: no search). On a
+   * flat piece one entry after the piece's start and before the last entry stands for all (the entries
+   * that may read another number, on a break at the start or the last, are taken by extremes() itself).
+   */
+  private takePiece(X: Float64Array, q: number, k0: number, k1: number, flat: boolean, n: number): void {
     const P = this.pieces!, seg = P.seg[q], lf = P.leaf[q];
+    if (flat) {
+      const k = T[k0] > P.a[q] ? k0 : k0 + 1;
+      if (k < k1 && k < n - 1) { k0 = k; k1 = k + 1; }
+    }
     for (let k = k0; k < k1; k++) {
       if (!HAVE[k]) this.fillWith(k, seg, lf);
       const x = X[k];
