@@ -87,6 +87,13 @@ export interface MeasureOptions {
    * `stopAbove` and `maxError` is still an error that really occurs. Default: measure everything.
    */
   stopAbove?: number;
+  /**
+   * With `estimate`: also take the certifying measurement (as without `estimate`) in the same pass, read
+   * afterwards with lastCertified(). The estimate's figures, and where it stops (stopAbove applies to the
+   * estimate), are unchanged; the certifying figures are those of measureError without `estimate` when
+   * the pass was not stopped and no piece was left to sampling (lastCertified() is null otherwise).
+   */
+  alsoCertify?: boolean;
 }
 
 type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
@@ -113,6 +120,19 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
 let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
 let splitBudget = 0;
+/**
+ * The certifying figures taken alongside an estimate (MeasureOptions.alsoCertify): dual is on for the
+ * pass, dualValid false once a piece was left to sampling (the two measures sample differently there).
+ */
+let dual = false, dualValid = false, cBest = 0, cAt = 0, cCert = 0;
+
+/** record() for the certifying figures of a dual pass. */
+function recordCert(err: number, at: number, cert: number): void {
+  if (err !== err) err = Infinity;
+  if (cert !== cert) cert = Infinity;
+  if (err > cBest) { cBest = err; cAt = at; }
+  if (cert > cCert) cCert = cert;
+}
 
 /**
  * Fold one piece's figures in. A NaN error (a non-finite table or source number) counts as +Infinity:
@@ -138,9 +158,10 @@ function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
   DIFF[0] = SRC[0] - TAB[0]; DIFF[1] = SRC[1] - TAB[1]; DIFF[2] = SRC[2] - TAB[2]; DIFF[3] = SRC[3] - TAB[3];
   // a piece whose error cannot reach the figures already found changes nothing (see cubicBound)
   const ub = cubicBound(DIFF, x1 - x0);
-  if (ub <= bestErr && ub <= certified) return;
+  if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) return;
   const e = maxAbsCubic_(DIFF, x1 - x0);
   record(e, x0 + MAX_SLOT[1], e);
+  if (dual) recordCert(e, x0 + MAX_SLOT[1], e);
 }
 
 /**
@@ -183,6 +204,7 @@ function tabM1(origin: number, x1: number): number {
  * |g| ≤ max(|g(a)|, |g(b)|) + |f(b) − f(a)| + M1_p·(b − a).
  */
 function sliver(src: BakeSource, i: number, a: number, b: number, origin: number): void {
+  dualValid = false;
   const ga = gAt(src, i, a, origin), gb = gAt(src, i, b, origin);
   const w = b - a;
   const M1 = src.bound(i, 1, a, b);
@@ -199,6 +221,7 @@ function sampledPiece(
   src: BakeSource, i: number, x0: number, x1: number, origin: number, slackAbs: number, maxSamples: number, estimate: boolean, depth: number,
 ): void {
   sampledUsed = true;
+  dualValid = false;
   const L = x1 - x0;
   const M = src.bound(i, 2, x0, x1) + tabM2(origin, x0, x1);
   if (!estimate) {
@@ -257,12 +280,17 @@ function proxyPiece(
     DIFF[0] = SRC[0] - TAB2[0]; DIFF[1] = SRC[1] - TAB2[1]; DIFF[2] = SRC[2] - TAB2[2]; DIFF[3] = SRC[3] - TAB2[3];
     // skip a leaf whose figures cannot exceed those found so far (cubicBound); the estimate records e − ε, the proof e + ε
     const ub = cubicBound(DIFF, y1 - y0);
-    if (estimate ? ub - E[k] <= bestErr && ub - E[k] <= certified : ub <= bestErr && ub + E[k] <= certified) continue;
+    if (estimate ? ub - E[k] <= bestErr && ub - E[k] <= certified && (!dual || (ub <= cBest && ub + E[k] <= cCert)) : ub <= bestErr && ub + E[k] <= certified) continue;
     const e = maxAbsCubic_(DIFF, y1 - y0);
     const at = y0 + MAX_SLOT[1];
     if (estimate) {
       const low = e - E[k] > 0 ? e - E[k] : 0;
       record(low, at, low);
+      // the certifying figures, as the branches below record them (a leaf either skip rule passes over changes nothing)
+      if (dual) {
+        if (e > cBest || e !== e) recordCert(gAt(src, i, at, x0), at, e + E[k]);
+        else recordCert(0, at, e + E[k]);
+      }
     } else if (e > bestErr || e !== e) {
       record(gAt(src, i, at, x0), at, e + E[k]);
     } else {
@@ -278,6 +306,16 @@ function proxyPiece(
 export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): ErrorMeasure {
   measureInto(src, tab, opts, from, to);
   return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
+}
+
+/**
+ * The certifying measurement taken alongside the last estimate with MeasureOptions.alsoCertify: the
+ * figures measureError without `estimate` gives for the same table and range, or null when that pass was
+ * stopped early, left a piece to sampling, or was not a dual pass.
+ */
+export function lastCertified(): ErrorMeasure | null {
+  if (!dual || !dualValid) return null;
+  return { maxError: cBest, at: cAt, certified: cCert, method: sampledUsed ? 'sampled+bound' : 'exact' };
 }
 
 /** measureError's `certified` figure alone, without allocating (searches that only compare it with a tolerance). */
@@ -299,6 +337,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const K = tab.times;
   const nk = K.length;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000;
+  dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;
@@ -340,7 +379,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
           if (!proxy) proxy = proxyFor_(src, slackAbs);
           proxyPiece(src, proxy, i, x0, x1, estimate ? tolAbs : slackAbs, maxSamples, estimate);
         }
-        if (certified > stopAbove) break pieces;
+        if (certified > stopAbove) { dualValid = false; break pieces; }
       }
       if (x1 >= b) break;
       x0 = x1;
@@ -348,9 +387,10 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
     }
   }
   // the end point itself (a step into the last key shows only there)
-  if (certified > stopAbove) return;
+  if (certified > stopAbove) { dualValid = false; return; }
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
     const e = Math.abs(src.endValue - evalTable_(tab, B));
     record(e, B, e);
+    if (dual) recordCert(e, B, e);
   }
 }

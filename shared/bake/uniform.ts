@@ -13,6 +13,9 @@
  *    the place where the last rejected count failed (the search spends most counts there).
  * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed,
  *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
+ *    A whole-table estimate also takes the certifying measurement in the same pass (./measure.ts
+ *    alsoCertify), so the proof of N is usually already at hand when the search ends: the trial table
+ *    holds the same numbers as the table built for N (./entries.ts).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break); where that derivative is not finite
  * (a vertical tangent) the secant over ⅛ grid step into the segment (./slopes.ts entrySlope). Inside a
@@ -25,7 +28,7 @@ import type { BakeSource } from './source';
 import { minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { measureCertified, measureError, proxyDistance, type ErrorMeasure } from './measure';
+import { lastCertified, measureCertified, measureError, proxyDistance, type ErrorMeasure } from './measure';
 import { proxyFor, hasSampledSegments, CUBIC, type Proxy } from './proxy';
 import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
@@ -37,6 +40,7 @@ import { fillEntries, roundTrip, WindowTrials } from './entries';
 // call through an imported binding into a getter call on the exporting module).
 const measureError_ = measureError;
 const measureCertified_ = measureCertified;
+const lastCertified_ = lastCertified;
 const uniformTimes_ = uniformTimes;
 const assembleTable_ = assembleTable;
 const minMax_ = minMax;
@@ -131,7 +135,10 @@ export function bakeUniform(
   const tried = new Map<number, number>();
   const estimates = new Map<number, number>();
   const tables = new Map<number, { table: Table; measure: ErrorMeasure }>();
-  const estOpts = { tolerance: tol, estimate: true, stopAbove: tol };
+  const estOpts = { tolerance: tol, estimate: true, stopAbove: tol, alsoCertify: true };
+  // the certifying measurement of each count whose whole-table estimate passed (taken in the same pass)
+  const proofs = new Map<number, ErrorMeasure>();
+  const keepProof = (n: number): void => { const c = lastCertified_(); if (c) proofs.set(n, c); };
   const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
   // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
   let failAt = Number.NaN;
@@ -152,7 +159,7 @@ export function bakeUniform(
       const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
       const r = trials.run(n, wa, wb, hasWindow, tol,
         (v) => measureCertified_(src, v, winOpts, wa, wb),
-        (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
+        (v) => { const m = measureError_(src, v, estOpts); keepProof(n); return { e: m.certified, at: m.at }; });
       e = r.e;
       if (r.fullAt !== null && e > tol) failAt = r.fullAt;
       estimates.set(n, e);
@@ -171,6 +178,7 @@ export function bakeUniform(
       }
       if (e === Infinity) {
         const m = measureError_(src, table, estOpts);
+        keepProof(n);
         e = m.certified;
         if (e > tol) failAt = m.at;
       }
@@ -185,7 +193,7 @@ export function bakeUniform(
     try { built = uniformTableWithKnots(src, profile, n, breaks, proxy); } catch { built = null; }
     if (!built) { tried.set(n, Infinity); return false; }
     const table = built.table;
-    const measure = measureError_(src, table, { ...opts, knotValues: built.values, knotSegments: built.segs });
+    const measure = proofs.get(n) ?? measureError_(src, table, { ...opts, knotValues: built.values, knotSegments: built.segs });
     tried.set(n, measure.certified);
     tables.set(n, { table, measure });
     return measure.certified <= tol;
