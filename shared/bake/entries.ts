@@ -266,7 +266,7 @@ export interface TrialOutcome {
 }
 
 /** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
-/** Below this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece). */
+/** At most this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece), then measures its window first. */
 export const WINDOW_MIN_ENTRIES = 64;
 
 export class WindowTrials {
@@ -372,6 +372,11 @@ export class WindowTrials {
       if (this.hermite) { const [mlo, mhi] = minMax_(XM.subarray(0, n)); qm = makeQuantizer_(e, mlo, mhi); }
     }
     decode(qv, qm, 0, n);
+    // a small table is filled whole, but the window still rejects most counts before the whole measure
+    if (hasWindow && n <= WINDOW_MIN_ENTRIES) {
+      const w = window(view);
+      if (w > tol) return { e: w, fullAt: null };
+    }
     const m = full(view);
     return { e: m.e, fullAt: m.at };
   }

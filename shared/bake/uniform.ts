@@ -211,7 +211,13 @@ export function bakeUniform(
     for (let m = j; m >= 0 && m >= j - SCAN_BELOW; m--) if (ok(m)) return m;
     return -1;
   };
-  const none = () => `curve "${src.name}": no uniform table of at most ${cand.at(cand.size - 1)} entries stays within ${tol.toPrecision(3)} (smallest estimated error ${Math.min(...estimates.values()).toPrecision(3)})`;
+  // every figure of a rejected count is a lower bound of its error (a window or a measure stopped at the
+  // first piece above tol), so the message names the largest count's figure as "at least"
+  const none = () => {
+    const N = cand.at(cand.size - 1), e = estimates.get(N);
+    const at = Number.isNaN(failAt) ? '' : `, near t = ${Number(failAt.toPrecision(4))} s`;
+    return `curve "${src.name}": no uniform table of at most ${N} entries stays within ${tol.toPrecision(3)} (with ${N} entries the error is still at least ${e === undefined ? 'unknown' : e.toPrecision(3)}${at}); use the adaptive layout or a larger tolerance`;
+  };
   let lo = -1, hi = -1;
   // a count that passes the estimate: i0, or the first found galloping upward from it; then bisect on P
   // from lo = −1 (fewer steps than galloping down when the bound's start is far above the answer)
