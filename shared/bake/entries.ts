@@ -166,6 +166,8 @@ interface Pieces {
    */
   vFlat: Uint8Array;
   mFlat: Uint8Array;
+  /** [lo, hi] over every piece: values at 0, 1; slopes at 2, 3 (±Infinity where a piece has no range). */
+  all: Float64Array;
   /** Piece order by increasing lower bound / decreasing upper bound, for values and slopes. */
   vLo: Int32Array; vHi: Int32Array; mLo: Int32Array; mHi: Int32Array;
 }
@@ -218,10 +220,17 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   }
   const count = a.length;
   const V = Float64Array.from(vr), M = Float64Array.from(mr);
+  const all = new Float64Array([Infinity, -Infinity, Infinity, -Infinity]);
+  for (let q = 0; q < count; q++) {
+    if (!(V[2 * q] >= all[0])) all[0] = V[2 * q];
+    if (!(V[2 * q + 1] <= all[1])) all[1] = V[2 * q + 1];
+    if (!(M[2 * q] >= all[2])) all[2] = M[2 * q];
+    if (!(M[2 * q + 1] <= all[3])) all[3] = M[2 * q + 1];
+  }
   const idx = (): Int32Array => { const r = new Int32Array(count); for (let q = 0; q < count; q++) r[q] = q; return r; };
   return {
     count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
-    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf),
+    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf), all,
     vLo: idx().sort((x, y) => V[2 * x] - V[2 * y] || x - y),
     vHi: idx().sort((x, y) => V[2 * y + 1] - V[2 * x + 1] || x - y),
     mLo: idx().sort((x, y) => M[2 * x] - M[2 * y] || x - y),
@@ -327,11 +336,20 @@ export class WindowTrials {
   }
 
   /**
-   * One trial of n entries: `window(view)` first when hasWindow (the view is valid on the entries the
-   * window [wa, wb] reads); a figure above tol from it is the outcome, else every entry is filled and
-   * `full(view)` measures the whole table.
+   * One trial of n entries: `window(view, stopAbove)` first when hasWindow (the view is valid on the
+   * entries the window [wa, wb] reads; the measure may stop once its figure is above stopAbove); a figure
+   * above tol from it is the outcome, else every entry is filled and `full(view)` measures the whole table.
+   *
+   * For unorm encodings the window is first measured on the entries before quantization, which needs no
+   * extremes: quantizing moves a value by at most scale/(2M) and a slope by at most scaleₘ/(2M) (M = 2ⁿ − 1,
+   * scale at most the width of every piece's range and the always-evaluated entries), so the table moves
+   * by at most δ = δᵥ (linear: a convex combination) or δᵥ + h·δₘ/4 (hermite: the value weights are ≥ 0
+   * and sum to 1, the slope weights h·s(1 − s)² and h·s²(1 − s) sum to at most h/4 in size). The
+   * window's estimate (exact, or max |q − p| − ε per leaf) then moves by at most δ as well, so a raw
+   * figure above tol + δ proves the quantized figure above tol: the same counts are rejected as by the
+   * quantized window, with the figure less δ as the outcome (still a lower bound of the error).
    */
-  run(n: number, wa: number, wb: number, hasWindow: boolean, tol: number, window: (v: TrialView) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
+  run(n: number, wa: number, wb: number, hasWindow: boolean, tol: number, window: (v: TrialView, stopAbove: number) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
     const src = this.src, S = src.times, ns = S.length - 1;
     ensure(n);
     this.n = n;
@@ -350,17 +368,24 @@ export class WindowTrials {
     }
     const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     if (hasWindow && n > WINDOW_MIN_ENTRIES) {
+      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb, and two more each side
+      const k0 = Math.max(0, lowerBound(T, n, wa) - 3), k1 = Math.min(n, lowerBound(T, n, wb) + 3);
+      for (let k = k0; k < k1; k++) this.fill(k);
       if (this.unorm) {
         this.pieces ??= makePieces(src, this.P);
+        const d = this.quantizeShift(n);
+        if (d < 0.5 * tol) {
+          DV.set(XV.subarray(k0, k1), k0);
+          if (this.hermite) DM.set(XM.subarray(k0, k1), k0);
+          const w = window(view, tol + d);
+          if (w > tol + d) return { e: w - d, fullAt: null };
+        }
         const [vlo, vhi] = this.extremes(0, n);
         qv = makeQuantizer_(e, vlo, vhi);
         if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
       }
-      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb, and two more each side
-      const k0 = Math.max(0, lowerBound(T, n, wa) - 3), k1 = Math.min(n, lowerBound(T, n, wb) + 3);
-      for (let k = k0; k < k1; k++) this.fill(k);
       decode(qv!, qm, k0, k1);
-      const w = window(view);
+      const w = window(view, tol);
       if (w > tol) return { e: w, fullAt: null };
     }
     // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
@@ -374,18 +399,36 @@ export class WindowTrials {
     decode(qv, qm, 0, n);
     // a small table is filled whole, but the window still rejects most counts before the whole measure
     if (hasWindow && n <= WINDOW_MIN_ENTRIES) {
-      const w = window(view);
+      const w = window(view, tol);
       if (w > tol) return { e: w, fullAt: null };
     }
     const m = full(view);
     return { e: m.e, fullAt: m.at };
   }
 
-  /** Exact [min, max] over the n entries of the values (o = 0) or slopes (o = 1), filling only where either can be. */
-  private extremes(o: 0 | 1, n: number): [number, number] {
-    const P = this.pieces!, X = o === 0 ? XV : XM, R = o === 0 ? P.values : P.slopes;
+  /**
+   * δ of run()'s raw window test for n entries: how far quantizing can move the table (Infinity when a
+   * range is unbounded). The rounding of the quantizer's arithmetic is covered by a margin far above it.
+   */
+  private quantizeShift(n: number): number {
+    const P = this.pieces!, M = unormMax_(this.profile.encoding as 'unorm8' | 'unorm16');
+    this.special(0, n);
+    const v0 = Math.min(EXT[0], P.all[0]), v1 = Math.max(EXT[1], P.all[1]);
+    let d = ((v1 - v0) * (0.5 + 1e-9)) / M + 1e-12 * (Math.abs(v0) + Math.abs(v1));
+    if (this.hermite) {
+      this.special(1, n);
+      const m0 = Math.min(EXT[0], P.all[2]), m1 = Math.max(EXT[1], P.all[3]);
+      d += (this.h / 4) * (((m1 - m0) * (0.5 + 1e-9)) / M + 1e-12 * (Math.abs(m0) + Math.abs(m1)));
+    }
+    // the measure's own rounding on the perturbed numbers (far below this)
+    d += 1e-9 * (1 + Math.abs(v0) + Math.abs(v1));
+    return d === d ? d : Infinity;
+  }
+
+  /** Fold into EXT (reset first) the entries not read from a piece's function: outside the domain, and for slopes the last entry and those on breaks. */
+  private special(o: 0 | 1, n: number): void {
+    const X = o === 0 ? XV : XM;
     EXT[0] = Infinity; EXT[1] = -Infinity;
-    // entries not read from a piece's function: outside the domain, and for slopes the last entry and those on breaks
     const S = this.src.times;
     const kS0 = lowerBound(T, n, S[0]), kSN = lowerBound(T, n, S[S.length - 1]);
     this.take(X, 0, kS0);
@@ -395,6 +438,12 @@ export class WindowTrials {
       const B = this.breaks;
       for (let j = 0; j < B.length; j++) { const k = lowerBound(T, n, B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
     }
+  }
+
+  /** Exact [min, max] over the n entries of the values (o = 0) or slopes (o = 1), filling only where either can be. */
+  private extremes(o: 0 | 1, n: number): [number, number] {
+    const P = this.pieces!, X = o === 0 ? XV : XM, R = o === 0 ? P.values : P.slopes;
+    this.special(o, n);
     const byLo = o === 0 ? P.vLo : P.mLo, byHi = o === 0 ? P.vHi : P.mHi, flat = o === 0 ? P.vFlat : P.mFlat;
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];

@@ -140,6 +140,8 @@ export function bakeUniform(
   const proofs = new Map<number, ErrorMeasure>();
   const keepProof = (n: number): void => { const c = lastCertified_(); if (c) proofs.set(n, c); };
   const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
+  // the same window with another stopping figure (./entries.ts: the raw window test of unorm trials)
+  const winOther = { ...winOpts };
   // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
   let failAt = Number.NaN;
   const opts = { tolerance: tol };
@@ -158,7 +160,11 @@ export function bakeUniform(
       const w = (4 * (B - A)) / Math.max(1, n - 1);
       const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
       const r = trials.run(n, wa, wb, hasWindow, tol,
-        (v) => measureCertified_(src, v, winOpts, wa, wb),
+        (v, stop) => {
+          if (stop === tol) return measureCertified_(src, v, winOpts, wa, wb);
+          winOther.stopAbove = stop;
+          return measureCertified_(src, v, winOther, wa, wb);
+        },
         (v) => { const m = measureError_(src, v, estOpts); keepProof(n); return { e: m.certified, at: m.at }; });
       e = r.e;
       if (r.fullAt !== null && e > tol) failAt = r.fullAt;

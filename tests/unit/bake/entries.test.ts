@@ -3,7 +3,9 @@
  * of every segment kind, unorm and f32 profiles and random counts, the entries a window trial fills, and
  * all entries when it measures the whole table, equal the decoded entries of uniformTable for that count
  * (which finds the unorm quantizer from the minimum and maximum of every entry). Tables of at most
- * WINDOW_MIN_ENTRIES entries are filled whole before their window is measured.
+ * WINDOW_MIN_ENTRIES entries are filled whole before their window is measured. For unorm, the window first
+ * seen before quantization holds numbers within half a code step of the quantized ones, and its estimate
+ * is within the shift run() allows for of the quantized window's (the proof behind the raw window test).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -11,6 +13,7 @@ import { DEMO_PROFILES, sourceFromDocument, type Profile } from '../../../shared
 import { WindowTrials, WINDOW_MIN_ENTRIES, type TrialView } from '../../../shared/bake/entries';
 import { findBreaks } from '../../../shared/bake/breaks';
 import { entryProxy, uniformTable } from '../../../shared/bake/uniform';
+import { measureError } from '../../../shared/bake/measure';
 import { randomCurve, rng } from '../../../bench/library';
 
 const PROFILES: Profile[] = [
@@ -22,6 +25,7 @@ const PROFILES: Profile[] = [
 
 describe('window trials fill the numbers of the whole table', () => {
   it('window entries and whole tables equal uniformTable for the same count (fast-check)', () => {
+    let rawChecked = 0;
     fc.assert(fc.property(
       fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('step', 'linear', 'hermite', 'bezier', 'shape', undefined),
       fc.integer({ min: 0, max: PROFILES.length - 1 }), fc.integer({ min: 2, max: 600 }), fc.double({ min: 0, max: 1, noNaN: true }),
@@ -43,10 +47,25 @@ describe('window trials fill the numbers of the whole table', () => {
           expect(v.values[k]).toBe(want.values[k]);
           if (p.kernel === 'hermite') expect(v.slopes![k]).toBe(want.slopes![k]);
         };
+        const inWindow = (v: TrialView, k: number) => n <= WINDOW_MIN_ENTRIES || (v.times[k] >= wa && v.times[k] <= wb);
+        const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
+        let raw = Number.NaN, shift = Number.NaN;
         trials.run(n, wa, wb, true, tol,
-          (v) => {
+          (v, stop) => {
+            if (stop !== tol) {
+              // the unorm window before quantization: each number within half a code step (scale/(2M)) of the
+              // quantized one; pass on (figure 0) so that the quantized window is measured as well
+              const M = p.encoding === 'unorm8' ? 255 : 65535;
+              const sv = want.values.length > 1 ? (Math.max(...want.values) - Math.min(...want.values)) / (2 * M) : 0;
+              for (let k = 0; k < n; k++) if (inWindow(v, k)) expect(Math.abs(v.values[k] - want.values[k])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
+              raw = measureError(src, v, estOpts, wa, wb).certified;
+              shift = stop - tol;
+              return 0;
+            }
             // small tables are filled whole before the window is measured
-            for (let k = 0; k < n; k++) if (n <= WINDOW_MIN_ENTRIES || (v.times[k] >= wa && v.times[k] <= wb)) { same(v, k); windowChecked++; }
+            for (let k = 0; k < n; k++) if (inWindow(v, k)) { same(v, k); windowChecked++; }
+            // quantizing moves the window's estimate by at most the shift the raw test allows for
+            if (raw === raw) { expect(Math.abs(measureError(src, v, estOpts, wa, wb).certified - raw)).toBeLessThanOrEqual(shift); rawChecked++; }
             return Infinity; // reject: the whole table is not filled
           },
           () => ({ e: 0, at: 0 }));
@@ -54,5 +73,6 @@ describe('window trials fill the numbers of the whole table', () => {
         expect(windowChecked).toBeGreaterThan(0);
         trials.run(n, wa, wb, false, tol, () => 0, (v) => { for (let k = 0; k < n; k++) same(v, k); return { e: 0, at: 0 }; });
       }), { numRuns: 200, seed: 4242 });
+    expect(rawChecked).toBeGreaterThan(30);
   });
 });
