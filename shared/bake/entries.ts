@@ -25,10 +25,11 @@ import type { Break } from './breaks';
 import type { Profile } from './profile';
 import type { Table } from './table';
 import { CUBIC, type Proxy } from './proxy';
-import { entrySlope } from './slopes';
+import { entrySlope, slopeCaps } from './slopes';
 import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, type Quantizer } from './encoding';
 
 const entrySlope_ = entrySlope;
+const slopeCaps_ = slopeCaps;
 const firstNonEmpty_ = firstNonEmpty;
 const makeQuantizer_ = makeQuantizer;
 const encodeOne_ = encodeOne;
@@ -238,23 +239,23 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   };
 }
 
-/** First index k < n with xs[k] ≥ x (n when none); xs sorted. */
-function lowerBound(xs: Float64Array, n: number, x: number): number {
-  let lo = 0, hi = n;
-  while (lo < hi) { const mid = (lo + hi) >> 1; if (xs[mid] < x) lo = mid + 1; else hi = mid; }
-  return lo;
-}
-
 /** Grow-only scratch buffers (one trial at a time). */
 let cap = 0;
 let T = new Float64Array(0), XV = new Float64Array(0), XM = new Float64Array(0), DV = new Float64Array(0), DM = new Float64Array(0);
-let HAVE = new Uint8Array(0);
+/** STAMP[k] === stamp: entry k (its time in T, its numbers in XV, XM) is filled in the current trial (no clearing per trial). */
+let STAMP = new Uint32Array(0);
+let stamp = 0;
 function ensure(n: number): void {
   if (n > cap) {
     cap = Math.max(n, 2 * cap, 64);
     T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
-    HAVE = new Uint8Array(cap);
+    STAMP = new Uint32Array(cap);
+    stamp = 0;
   }
+}
+/** A new trial: every entry unfilled. */
+function nextStamp(): void {
+  if (++stamp === 0xffffffff) { STAMP.fill(0); stamp = 1; }
 }
 
 /** The running [min, max] of WindowTrials.extremes. */
@@ -285,6 +286,9 @@ export class WindowTrials {
   private readonly hermite: boolean;
   private readonly ls: number;
   private n = 0;
+  /** The current trial's grid: first and last time (float32 of the source's ends) and step. */
+  private A = 0;
+  private B = 0;
   private h = 0;
 
   static applies(profile: Profile): boolean {
@@ -297,11 +301,27 @@ export class WindowTrials {
     this.ls = lastSegment(src);
   }
 
+  /** Time of entry k of the current trial: the numbers run() writes into T for a whole table. */
+  private tAt(k: number): number {
+    return k === this.n - 1 ? this.B : this.A + k * this.h;
+  }
+
+  /** First index k < n with tAt(k) ≥ x (n when none): lowerBound over the grid without the array (tAt is non-decreasing). */
+  private lb(x: number): number {
+    const n = this.n;
+    let k = Math.ceil((x - this.A) / this.h);
+    if (!(k >= 0)) k = 0;
+    if (k > n) k = n;
+    while (k > 0 && this.tAt(k - 1) >= x) k--;
+    while (k < n && this.tAt(k) < x) k++;
+    return k;
+  }
+
   /** Fill entry k (value and slope) if not yet filled, with the same numbers fillEntries gives. */
   private fill(k: number): void {
-    if (HAVE[k]) return;
+    if (STAMP[k] === stamp) return;
     const src = this.src, S = src.times, ns = S.length - 1, P = this.P;
-    const t = T[k];
+    const t = this.tAt(k);
     let seg = -1, lf = -1;
     if (t >= S[0] && t < S[ns]) {
       // the largest i < ns with S_i ≤ t (the segment fillEntries' walk reaches)
@@ -320,9 +340,10 @@ export class WindowTrials {
 
   /** Fill entry k known to lie in segment seg (−1 outside the domain) and stand-in leaf lf (−1: none). */
   private fillWith(k: number, seg: number, lf: number): void {
-    HAVE[k] = 1;
+    STAMP[k] = stamp;
     const src = this.src, P = this.P;
-    const t = T[k];
+    const t = this.tAt(k);
+    T[k] = t;
     let br: Break | null = null;
     if (this.hermite) {
       const B = this.breaks;
@@ -330,9 +351,29 @@ export class WindowTrials {
       while (lo < hi) { const mid = (lo + hi) >> 1; if (B[mid].time < t) lo = mid + 1; else hi = mid; }
       br = lo < B.length && B[lo].time === t && B[lo].right >= 0 ? B[lo] : null;
     }
-    entryAt(src, P, t, seg, seg >= 0 ? src.poly(seg) : null, lf, br, k === this.n - 1, this.ls, this.h, this.hermite);
+    const last = k === this.n - 1;
+    if (last && this.hermite) {
+      // the last entry's slope is the same number in every trial unless it is a secant (./slopes.ts entrySlope)
+      entryAt(src, P, t, seg, seg >= 0 ? src.poly(seg) : null, lf, br, true, this.ls, this.h, false);
+      XV[k] = ENTRY.value;
+      XM[k] = this.lastSlope(t);
+      return;
+    }
+    entryAt(src, P, t, seg, seg >= 0 ? src.poly(seg) : null, lf, br, last, this.ls, this.h, this.hermite);
     XV[k] = ENTRY.value;
     if (this.hermite) XM[k] = ENTRY.slope;
+  }
+
+  /** The slope of the last entry at t (always the grid's end B): entrySlope's number, kept when it is the derivative itself. */
+  private lastKept = Number.NaN;
+  private lastSlope(t: number): number {
+    if (this.lastKept === this.lastKept) return this.lastKept;
+    const src = this.src, S = src.times, ls = this.ls;
+    const te = Math.min(t, S[S.length - 1]);
+    const m = src.value(ls, te, 1);
+    // finiteSlope returns the derivative itself when it is finite and within the segment's cap, whatever the step
+    if (Number.isFinite(m) && Math.abs(m) <= slopeCaps_(src)[ls]) { this.lastKept = m; return m; }
+    return entrySlope_(src, t, -1, null, true, ls, this.h);
   }
 
   /**
@@ -355,29 +396,31 @@ export class WindowTrials {
     this.n = n;
     const A = Math.fround(S[0]), B = Math.fround(S[ns]);
     const h = (B - A) / (n - 1);
-    for (let k = 0; k < n; k++) T[k] = A + k * h;
-    T[n - 1] = B;
-    // fillEntries' grid step, from the stored times
-    this.h = (T[n - 1] - T[0]) / (n - 1);
-    HAVE.fill(0, 0, n);
+    // the times T[k] = A + k·h (T[n − 1] = B) are written only where an entry is filled, until the whole table is
+    this.A = A; this.B = B;
+    // fillEntries' grid step, (T[n − 1] − T[0])/(n − 1) from the stored times: the same number as h
+    this.h = h;
+    nextStamp();
     const e = this.profile.encoding;
     let qv: Quantizer | null = null, qm: Quantizer | null = null;
     if (!this.unorm) {
       qv = makeQuantizer_(e, 0, 0);
       if (this.hermite) qm = makeQuantizer_(e, 0, 0);
     }
-    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     if (hasWindow && n > WINDOW_MIN_ENTRIES) {
-      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb, and two more each side
-      const k0 = Math.max(0, lowerBound(T, n, wa) - 3), k1 = Math.min(n, lowerBound(T, n, wb) + 3);
+      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb; the window is
+      // measured on the table of these entries alone (T[k0] < wa unless k0 = 0, and T[k1 − 1] ≥ wb unless
+      // k1 = n, so every region of [wa, wb] and its two entries are the same as in the whole table)
+      const k0 = Math.max(0, this.lb(wa) - 1), k1 = Math.min(n, this.lb(wb) + 1);
       for (let k = k0; k < k1; k++) this.fill(k);
+      const part: TrialView = { kernel: this.profile.kernel, times: T.subarray(k0, k1), values: DV.subarray(k0, k1), slopes: this.hermite ? DM.subarray(k0, k1) : null };
       if (this.unorm) {
         this.pieces ??= makePieces(src, this.P);
         const d = this.quantizeShift(n);
         if (d < 0.5 * tol) {
           DV.set(XV.subarray(k0, k1), k0);
           if (this.hermite) DM.set(XM.subarray(k0, k1), k0);
-          const w = window(view, tol + d);
+          const w = window(part, tol + d);
           if (w > tol + d) return { e: w - d, fullAt: null };
         }
         const [vlo, vhi] = this.extremes(0, n);
@@ -385,9 +428,12 @@ export class WindowTrials {
         if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
       }
       decode(qv!, qm, k0, k1);
-      const w = window(view, tol);
+      const w = window(part, tol);
       if (w > tol) return { e: w, fullAt: null };
     }
+    for (let k = 0; k < n; k++) T[k] = A + k * h;
+    T[n - 1] = B;
+    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
     fillEntries(src, this.P, T.subarray(0, n), XV.subarray(0, n), this.hermite ? XM.subarray(0, n) : null, this.breaks);
     if (!qv) {
@@ -430,13 +476,13 @@ export class WindowTrials {
     const X = o === 0 ? XV : XM;
     EXT[0] = Infinity; EXT[1] = -Infinity;
     const S = this.src.times;
-    const kS0 = lowerBound(T, n, S[0]), kSN = lowerBound(T, n, S[S.length - 1]);
+    const kS0 = this.lb(S[0]), kSN = this.lb(S[S.length - 1]);
     this.take(X, 0, kS0);
     this.take(X, kSN, n);
     if (o === 1) {
       this.take(X, n - 1, n);
       const B = this.breaks;
-      for (let j = 0; j < B.length; j++) { const k = lowerBound(T, n, B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
+      for (let j = 0; j < B.length; j++) { const k = this.lb(B[j].time); if (k < n && this.tAt(k) === B[j].time) this.take(X, k, k + 1); }
     }
   }
 
@@ -448,12 +494,12 @@ export class WindowTrials {
     for (let r = 0; r < P.count; r++) {
       const q = byLo[r];
       if (R[2 * q] > EXT[0]) break;
-      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]), flat[q] === 1, n);
+      this.takePiece(X, q, this.lb(P.a[q]), this.lb(P.b[q]), flat[q] === 1, n);
     }
     for (let r = 0; r < P.count; r++) {
       const q = byHi[r];
       if (R[2 * q + 1] < EXT[1]) break;
-      this.takePiece(X, q, lowerBound(T, n, P.a[q]), lowerBound(T, n, P.b[q]), flat[q] === 1, n);
+      this.takePiece(X, q, this.lb(P.a[q]), this.lb(P.b[q]), flat[q] === 1, n);
     }
     return [EXT[0], EXT[1]];
   }
@@ -466,11 +512,11 @@ export class WindowTrials {
   private takePiece(X: Float64Array, q: number, k0: number, k1: number, flat: boolean, n: number): void {
     const P = this.pieces!, seg = P.seg[q], lf = P.leaf[q];
     if (flat) {
-      const k = T[k0] > P.a[q] ? k0 : k0 + 1;
+      const k = k0 < n && this.tAt(k0) > P.a[q] ? k0 : k0 + 1;
       if (k < k1 && k < n - 1) { k0 = k; k1 = k + 1; }
     }
     for (let k = k0; k < k1; k++) {
-      if (!HAVE[k]) this.fillWith(k, seg, lf);
+      if (STAMP[k] !== stamp) this.fillWith(k, seg, lf);
       const x = X[k];
       if (x < EXT[0]) EXT[0] = x;
       if (x > EXT[1]) EXT[1] = x;

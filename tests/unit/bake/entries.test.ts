@@ -3,14 +3,14 @@
  * of every segment kind, unorm and f32 profiles and random counts, the entries a window trial fills, and
  * all entries when it measures the whole table, equal the decoded entries of uniformTable for that count
  * (which finds the unorm quantizer from the minimum and maximum of every entry). Tables of at most
- * WINDOW_MIN_ENTRIES entries are filled whole before their window is measured. For unorm, the window first
+ * WINDOW_MIN_ENTRIES (./entries.ts) entries are filled whole before their window is measured. For unorm, the window first
  * seen before quantization holds numbers within half a code step of the quantized ones, and its estimate
  * is within the shift run() allows for of the quantized window's (the proof behind the raw window test).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { DEMO_PROFILES, sourceFromDocument, type Profile } from '../../../shared/bake';
-import { WindowTrials, WINDOW_MIN_ENTRIES, type TrialView } from '../../../shared/bake/entries';
+import { WindowTrials, type TrialView } from '../../../shared/bake/entries';
 import { findBreaks } from '../../../shared/bake/breaks';
 import { entryProxy, uniformTable } from '../../../shared/bake/uniform';
 import { measureError } from '../../../shared/bake/measure';
@@ -42,12 +42,13 @@ describe('window trials fill the numbers of the whole table', () => {
         const c = A + (B - A) * where, w = (4 * (B - A)) / (n - 1);
         const wa = Math.max(A, c - w), wb = Math.min(B, c + w);
         let windowChecked = 0;
-        const same = (v: TrialView, k: number) => {
-          expect(v.times[k]).toBe(want.times[k]);
-          expect(v.values[k]).toBe(want.values[k]);
-          if (p.kernel === 'hermite') expect(v.slopes![k]).toBe(want.slopes![k]);
+        // view entry j against table entry o + j (a window trial may measure the table of its window's entries alone)
+        const same = (v: TrialView, j: number, o = 0) => {
+          expect(v.times[j]).toBe(want.times[o + j]);
+          expect(v.values[j]).toBe(want.values[o + j]);
+          if (p.kernel === 'hermite') expect(v.slopes![j]).toBe(want.slopes![o + j]);
         };
-        const inWindow = (v: TrialView, k: number) => n <= WINDOW_MIN_ENTRIES || (v.times[k] >= wa && v.times[k] <= wb);
+        const offset = (v: TrialView) => { const o = Array.prototype.indexOf.call(want.times, v.times[0]); expect(o).toBeGreaterThanOrEqual(0); return o; };
         const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
         let raw = Number.NaN, shift = Number.NaN;
         trials.run(n, wa, wb, true, tol,
@@ -57,13 +58,18 @@ describe('window trials fill the numbers of the whole table', () => {
               // quantized one; pass on (figure 0) so that the quantized window is measured as well
               const M = p.encoding === 'unorm8' ? 255 : 65535;
               const sv = want.values.length > 1 ? (Math.max(...want.values) - Math.min(...want.values)) / (2 * M) : 0;
-              for (let k = 0; k < n; k++) if (inWindow(v, k)) expect(Math.abs(v.values[k] - want.values[k])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
+              const o = offset(v);
+              for (let j = 0; j < v.times.length; j++) expect(Math.abs(v.values[j] - want.values[o + j])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
               raw = measureError(src, v, estOpts, wa, wb).certified;
               shift = stop - tol;
               return 0;
             }
             // small tables are filled whole before the window is measured
-            for (let k = 0; k < n; k++) if (inWindow(v, k)) { same(v, k); windowChecked++; }
+            const o = offset(v);
+            // the window's table reaches past [wa, wb] on both sides (or to the table's own ends)
+            expect(v.times[0] <= wa || o === 0).toBe(true);
+            expect(v.times[v.times.length - 1] >= wb || o + v.times.length === n).toBe(true);
+            for (let j = 0; j < v.times.length; j++) { same(v, j, o); windowChecked++; }
             // quantizing moves the window's estimate by at most the shift the raw test allows for
             if (raw === raw) { expect(Math.abs(measureError(src, v, estOpts, wa, wb).certified - raw)).toBeLessThanOrEqual(shift); rawChecked++; }
             return Infinity; // reject: the whole table is not filled
