@@ -273,7 +273,14 @@ export interface TrialOutcome {
   e: number;
   /** Set when the whole table was measured: where its largest error is. */
   fullAt: number | null;
+  /** The index of the spot whose window rejected the count (−1: none did). */
+  spot: number;
 }
+
+/** Most windows (failure spots) a trial measures first. */
+export const MAX_SPOTS = 4;
+const WA = new Float64Array(MAX_SPOTS), WB = new Float64Array(MAX_SPOTS);
+const K0 = new Int32Array(MAX_SPOTS), K1 = new Int32Array(MAX_SPOTS);
 
 /** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
 /** At most this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece), then measures its window first. */
@@ -377,11 +384,12 @@ export class WindowTrials {
   }
 
   /**
-   * One trial of n entries: `window(view, stopAbove)` first when hasWindow (the view is valid on the
-   * entries the window [wa, wb] reads; the measure may stop once its figure is above stopAbove); a figure
-   * above tol from it is the outcome, else every entry is filled and `full(view)` measures the whole table.
+   * One trial of n entries: a window of ±4 grid steps around each of `spots` (most recent failure first)
+   * is measured first, `window(view, stopAbove, wa, wb)` (the view is valid on the entries the window
+   * [wa, wb] reads; the measure may stop once its figure is above stopAbove); a figure above tol from one
+   * of them is the outcome, else every entry is filled and `full(view)` measures the whole table.
    *
-   * For unorm encodings the window is first measured on the entries before quantization, which needs no
+   * For unorm encodings each window is first measured on the entries before quantization, which needs no
    * extremes: quantizing moves a value by at most scale/(2M) and a slope by at most scaleₘ/(2M) (M = 2ⁿ − 1,
    * scale at most the width of every piece's range and the always-evaluated entries), so the table moves
    * by at most δ = δᵥ (linear: a convex combination) or δᵥ + h·δₘ/4 (hermite: the value weights are ≥ 0
@@ -390,7 +398,7 @@ export class WindowTrials {
    * figure above tol + δ proves the quantized figure above tol: the same counts are rejected as by the
    * quantized window, with the figure less δ as the outcome (still a lower bound of the error).
    */
-  run(n: number, wa: number, wb: number, hasWindow: boolean, tol: number, window: (v: TrialView, stopAbove: number) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
+  run(n: number, spots: readonly number[], tol: number, window: (v: TrialView, stopAbove: number, wa: number, wb: number) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
     const src = this.src, S = src.times, ns = S.length - 1;
     ensure(n);
     this.n = n;
@@ -407,29 +415,40 @@ export class WindowTrials {
       qv = makeQuantizer_(e, 0, 0);
       if (this.hermite) qm = makeQuantizer_(e, 0, 0);
     }
-    if (hasWindow && n > WINDOW_MIN_ENTRIES) {
-      // the entries the window measure reads: from the region holding wa to the first entry ≥ wb; the window is
+    // the windows: [wa, wb] = spot ± 4 grid steps of the source's domain, clipped to it
+    const ws = Math.min(spots.length, MAX_SPOTS), wd = (4 * (S[ns] - S[0])) / Math.max(1, n - 1);
+    for (let i = 0; i < ws; i++) { WA[i] = Math.max(S[0], spots[i] - wd); WB[i] = Math.min(S[ns], spots[i] + wd); }
+    if (ws > 0 && n > WINDOW_MIN_ENTRIES) {
+      // the entries a window measure reads: from the region holding wa to the first entry ≥ wb; the window is
       // measured on the table of these entries alone (T[k0] < wa unless k0 = 0, and T[k1 − 1] ≥ wb unless
       // k1 = n, so every region of [wa, wb] and its two entries are the same as in the whole table)
-      const k0 = Math.max(0, this.lb(wa) - 1), k1 = Math.min(n, this.lb(wb) + 1);
-      for (let k = k0; k < k1; k++) this.fill(k);
-      const part: TrialView = { kernel: this.profile.kernel, times: T.subarray(k0, k1), values: DV.subarray(k0, k1), slopes: this.hermite ? DM.subarray(k0, k1) : null };
+      for (let i = 0; i < ws; i++) {
+        const k0 = Math.max(0, this.lb(WA[i]) - 1), k1 = Math.min(n, this.lb(WB[i]) + 1);
+        K0[i] = k0; K1[i] = k1;
+        for (let k = k0; k < k1; k++) this.fill(k);
+      }
       if (this.unorm) {
         this.pieces ??= makePieces(src, this.P);
         const d = this.quantizeShift(n);
         if (d < 0.5 * tol) {
-          DV.set(XV.subarray(k0, k1), k0);
-          if (this.hermite) DM.set(XM.subarray(k0, k1), k0);
-          const w = window(part, tol + d);
-          if (w > tol + d) return { e: w - d, fullAt: null };
+          for (let i = 0; i < ws; i++) {
+            const k0 = K0[i], k1 = K1[i];
+            DV.set(XV.subarray(k0, k1), k0);
+            if (this.hermite) DM.set(XM.subarray(k0, k1), k0);
+            const w = window(this.part(k0, k1), tol + d, WA[i], WB[i]);
+            if (w > tol + d) return { e: w - d, fullAt: null, spot: i };
+          }
         }
         const [vlo, vhi] = this.extremes(0, n);
         qv = makeQuantizer_(e, vlo, vhi);
         if (this.hermite) { const [mlo, mhi] = this.extremes(1, n); qm = makeQuantizer_(e, mlo, mhi); }
       }
-      decode(qv!, qm, k0, k1);
-      const w = window(part, tol);
-      if (w > tol) return { e: w, fullAt: null };
+      for (let i = 0; i < ws; i++) {
+        const k0 = K0[i], k1 = K1[i];
+        decode(qv!, qm, k0, k1);
+        const w = window(this.part(k0, k1), tol, WA[i], WB[i]);
+        if (w > tol) return { e: w, fullAt: null, spot: i };
+      }
     }
     for (let k = 0; k < n; k++) T[k] = A + k * h;
     T[n - 1] = B;
@@ -443,13 +462,20 @@ export class WindowTrials {
       if (this.hermite) { const [mlo, mhi] = minMax_(XM.subarray(0, n)); qm = makeQuantizer_(e, mlo, mhi); }
     }
     decode(qv, qm, 0, n);
-    // a small table is filled whole, but the window still rejects most counts before the whole measure
-    if (hasWindow && n <= WINDOW_MIN_ENTRIES) {
-      const w = window(view, tol);
-      if (w > tol) return { e: w, fullAt: null };
+    // a small table is filled whole, but the windows still reject most counts before the whole measure
+    if (n <= WINDOW_MIN_ENTRIES) {
+      for (let i = 0; i < ws; i++) {
+        const w = window(view, tol, WA[i], WB[i]);
+        if (w > tol) return { e: w, fullAt: null, spot: i };
+      }
     }
     const m = full(view);
-    return { e: m.e, fullAt: m.at };
+    return { e: m.e, fullAt: m.at, spot: -1 };
+  }
+
+  /** The trial's table of entries [k0, k1) (decoded numbers in DV, DM). */
+  private part(k0: number, k1: number): TrialView {
+    return { kernel: this.profile.kernel, times: T.subarray(k0, k1), values: DV.subarray(k0, k1), slopes: this.hermite ? DM.subarray(k0, k1) : null };
   }
 
   /**

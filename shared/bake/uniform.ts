@@ -34,7 +34,7 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { fillEntries, roundTrip, WindowTrials } from './entries';
+import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS } from './entries';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -142,8 +142,18 @@ export function bakeUniform(
   const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
   // the same window with another stopping figure (./entries.ts: the raw window test of unorm trials)
   const winOther = { ...winOpts };
-  // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn)
+  // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn), and
+  // the last few such places, most recent first: a trial measures a window around each before the whole
+  // table (the search's counts fail at a few places in turn)
   let failAt = Number.NaN;
+  const spots: number[] = [];
+  const failedAt = (x: number): void => {
+    failAt = x;
+    const near = (B - A) * 1e-3;
+    for (let i = 0; i < spots.length; i++) if (Math.abs(spots[i] - x) <= near) { spots.splice(i, 1); break; }
+    spots.unshift(x);
+    if (spots.length > MAX_SPOTS) spots.length = MAX_SPOTS;
+  };
   const opts = { tolerance: tol };
   // a sampled source's entries are read from its cubic stand-ins (./proxy.ts): a few operations each
   const proxy = entryProxy(src, tol);
@@ -156,18 +166,16 @@ export function bakeUniform(
     if (seen !== undefined) return seen <= tol;
     let e = Infinity;
     if (trials) {
-      const hasWindow = !Number.isNaN(failAt);
-      const w = (4 * (B - A)) / Math.max(1, n - 1);
-      const wa = Math.max(A, failAt - w), wb = Math.min(B, failAt + w);
-      const r = trials.run(n, wa, wb, hasWindow, tol,
-        (v, stop) => {
+      const r = trials.run(n, spots, tol,
+        (v, stop, wa, wb) => {
           if (stop === tol) return measureCertified_(src, v, winOpts, wa, wb);
           winOther.stopAbove = stop;
           return measureCertified_(src, v, winOther, wa, wb);
         },
         (v) => { const m = measureError_(src, v, estOpts); keepProof(n); return { e: m.certified, at: m.at }; });
       e = r.e;
-      if (r.fullAt !== null && e > tol) failAt = r.fullAt;
+      if (r.fullAt !== null && e > tol) failedAt(r.fullAt);
+      else if (r.spot > 0) failedAt(spots[r.spot]);
       estimates.set(n, e);
       if (e > tol) tried.set(n, Infinity);
       return e <= tol;
@@ -175,18 +183,18 @@ export function bakeUniform(
     let table: Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> | null;
     try { table = trialTable(src, profile, n, breaks, proxy); } catch { table = null; }
     if (table) {
-      // look first around the last failure: a window of a few entries there rejects most counts at once
+      // look first around the last failures: a window of a few entries there rejects most counts at once
       // (every sample is a true error, so a window above tol is a proof that the whole table fails)
-      if (!Number.isNaN(failAt)) {
-        const w = (4 * (B - A)) / Math.max(1, n - 1);
-        const win = measureError_(src, table, winOpts, Math.max(A, failAt - w), Math.min(B, failAt + w));
-        if (win.certified > tol) e = win.certified;
+      const w = (4 * (B - A)) / Math.max(1, n - 1);
+      for (let i = 0; i < spots.length && e === Infinity; i++) {
+        const win = measureError_(src, table, winOpts, Math.max(A, spots[i] - w), Math.min(B, spots[i] + w));
+        if (win.certified > tol) { e = win.certified; if (i > 0) failedAt(spots[i]); }
       }
       if (e === Infinity) {
         const m = measureError_(src, table, estOpts);
         keepProof(n);
         e = m.certified;
-        if (e > tol) failAt = m.at;
+        if (e > tol) failedAt(m.at);
       }
     }
     estimates.set(n, e);
@@ -247,7 +255,7 @@ export function bakeUniform(
     if (certify(hi)) break;
     const n = cand.at(hi);
     estimates.set(n, tried.get(n)!);
-    failAt = tables.get(n)!.measure.at;
+    failedAt(tables.get(n)!.measure.at);
     if (round + 1 >= MAX_ROUNDS || hi + 1 >= cand.size) {
       return `curve "${src.name}": no uniform table up to ${n} entries is provably within ${tol.toPrecision(3)} (certified ${tried.get(n)!.toPrecision(3)})`;
     }

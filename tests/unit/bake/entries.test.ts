@@ -28,7 +28,8 @@ describe('window trials fill the numbers of the whole table', () => {
     let rawChecked = 0;
     fc.assert(fc.property(
       fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('step', 'linear', 'hermite', 'bezier', 'shape', undefined),
-      fc.integer({ min: 0, max: PROFILES.length - 1 }), fc.integer({ min: 2, max: 600 }), fc.double({ min: 0, max: 1, noNaN: true }),
+      fc.integer({ min: 0, max: PROFILES.length - 1 }), fc.integer({ min: 2, max: 600 }),
+      fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 1, maxLength: 4 }),
       (seed, kind, pi, n, where) => {
         const doc = randomCurve(rng(seed), `w-${seed}`, kind as never, 6);
         const src = sourceFromDocument(doc);
@@ -39,8 +40,10 @@ describe('window trials fill the numbers of the whole table', () => {
         try { want = uniformTable(src, p, n, br, tol); } catch { return; }
         const trials = new WindowTrials(src, p, br, entryProxy(src, tol));
         const A = src.times[0], B = src.times[src.times.length - 1];
-        const c = A + (B - A) * where, w = (4 * (B - A)) / (n - 1);
-        const wa = Math.max(A, c - w), wb = Math.min(B, c + w);
+        // failure spots, most recent first: each window is ±4 grid steps around its spot, clipped to the domain
+        const spots = where.map((x) => A + (B - A) * x);
+        const w = (4 * (B - A)) / (n - 1);
+        const windows = spots.map((c) => [Math.max(A, c - w), Math.min(B, c + w)]);
         let windowChecked = 0;
         // view entry j against table entry o + j (a window trial may measure the table of its window's entries alone)
         const same = (v: TrialView, j: number, o = 0) => {
@@ -50,9 +53,13 @@ describe('window trials fill the numbers of the whole table', () => {
         };
         const offset = (v: TrialView) => { const o = Array.prototype.indexOf.call(want.times, v.times[0]); expect(o).toBeGreaterThanOrEqual(0); return o; };
         const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
-        let raw = Number.NaN, shift = Number.NaN;
-        trials.run(n, wa, wb, true, tol,
-          (v, stop) => {
+        const raw: number[] = [];
+        let shift = Number.NaN, quantized = 0;
+        trials.run(n, spots, tol,
+          (v, stop, wa, wb) => {
+            // the windows come in the spots' order, first all before quantization (unorm), then all after
+            const i = stop !== tol ? raw.length : quantized++;
+            expect([wa, wb]).toEqual(windows[i]);
             if (stop !== tol) {
               // the unorm window before quantization: each number within half a code step (scale/(2M)) of the
               // quantized one; pass on (figure 0) so that the quantized window is measured as well
@@ -60,7 +67,7 @@ describe('window trials fill the numbers of the whole table', () => {
               const sv = want.values.length > 1 ? (Math.max(...want.values) - Math.min(...want.values)) / (2 * M) : 0;
               const o = offset(v);
               for (let j = 0; j < v.times.length; j++) expect(Math.abs(v.values[j] - want.values[o + j])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
-              raw = measureError(src, v, estOpts, wa, wb).certified;
+              raw.push(measureError(src, v, estOpts, wa, wb).certified);
               shift = stop - tol;
               return 0;
             }
@@ -71,13 +78,16 @@ describe('window trials fill the numbers of the whole table', () => {
             expect(v.times[v.times.length - 1] >= wb || o + v.times.length === n).toBe(true);
             for (let j = 0; j < v.times.length; j++) { same(v, j, o); windowChecked++; }
             // quantizing moves the window's estimate by at most the shift the raw test allows for
-            if (raw === raw) { expect(Math.abs(measureError(src, v, estOpts, wa, wb).certified - raw)).toBeLessThanOrEqual(shift); rawChecked++; }
-            return Infinity; // reject: the whole table is not filled
+            if (raw.length > 0) { expect(Math.abs(measureError(src, v, estOpts, wa, wb).certified - raw[i])).toBeLessThanOrEqual(shift); rawChecked++; }
+            // pass on to the next window; the last one rejects, so the whole table is not filled
+            return i === spots.length - 1 ? Infinity : 0;
           },
           () => ({ e: 0, at: 0 }));
-        // every trial measured the window first (a window holds at least one entry, the region's ends)
+        // every trial measured each window first (a window holds at least one entry, the region's ends)
         expect(windowChecked).toBeGreaterThan(0);
-        trials.run(n, wa, wb, false, tol, () => 0, (v) => { for (let k = 0; k < n; k++) same(v, k); return { e: 0, at: 0 }; });
+        expect(quantized).toBe(spots.length);
+        expect(raw.length === 0 || raw.length === spots.length).toBe(true);
+        trials.run(n, [], tol, () => 0, (v) => { for (let k = 0; k < n; k++) same(v, k); return { e: 0, at: 0 }; });
       }), { numRuns: 200, seed: 4242 });
     expect(rawChecked).toBeGreaterThan(30);
   });
