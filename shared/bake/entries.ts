@@ -104,6 +104,23 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
       while (b < breaks.length && breaks[b].time < t) b++;
       br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
     }
+    if (seg >= 0 && !br && k !== n - 1) {
+      // the two common cases of entryAt inline (the same expressions): the segment's own cubic, a stand-in leaf
+      if (poly) {
+        const u = t - S[seg];
+        values[k] = poly[0] + u * (poly[1] + u * (poly[2] + u * poly[3]));
+        if (slopes) slopes[k] = poly[1] + u * (2 * poly[2] + 3 * u * poly[3]);
+        if (segs) segs[k] = seg;
+        continue;
+      }
+      if (lf >= 0 && P!.kind[lf] === CUBIC) {
+        const o = 4 * lf, c = P!.c, u = t - P!.a[lf];
+        values[k] = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
+        if (slopes) slopes[k] = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
+        if (segs) segs[k] = -2;
+        continue;
+      }
+    }
     entryAt(src, P, t, seg, seg >= 0 ? poly : null, lf, br, k === n - 1, ls, w, slopes !== null);
     values[k] = ENTRY.value;
     if (slopes) slopes[k] = ENTRY.slope;
