@@ -25,11 +25,14 @@ import type { Break } from './breaks';
 import type { Profile } from './profile';
 import type { Table } from './table';
 import { CUBIC, type Proxy } from './proxy';
-import { entrySlope, slopeCaps } from './slopes';
+import { entrySlope, keepsDerivative } from './slopes';
+import { cubicAt, cubicSlopeAt } from './poly';
 import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, type Quantizer } from './encoding';
 
 const entrySlope_ = entrySlope;
-const slopeCaps_ = slopeCaps;
+const keepsDerivative_ = keepsDerivative;
+const cubicAt_ = cubicAt;
+const cubicSlopeAt_ = cubicSlopeAt;
 const firstNonEmpty_ = firstNonEmpty;
 const makeQuantizer_ = makeQuantizer;
 const encodeOne_ = encodeOne;
@@ -60,14 +63,14 @@ export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number
   else if (poly) {
     // the segment's own cubic (value(seg, t, ·) is this polynomial: ./source.ts), inline; its slope is finite
     const u = t - src.times[seg];
-    ENTRY.value = poly[0] + u * (poly[1] + u * (poly[2] + u * poly[3]));
+    ENTRY.value = cubicAt_(poly, u);
     ENTRY.own = true;
-    if (slope) ENTRY.slope = !br && !last ? poly[1] + u * (2 * poly[2] + 3 * u * poly[3]) : entrySlope_(src, t, seg, br, last, ls, w);
+    if (slope) ENTRY.slope = !br && !last ? cubicSlopeAt_(poly, u) : entrySlope_(src, t, seg, br, last, ls, w);
     return;
   } else if (leaf >= 0 && P!.kind[leaf] === CUBIC) {
     const o = 4 * leaf, c = P!.c, u = t - P!.a[leaf];
-    ENTRY.value = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
-    m = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
+    ENTRY.value = cubicAt_(c, u, o);
+    m = cubicSlopeAt_(c, u, o);
     fromLeaf = true;
   } else ENTRY.value = src.value(seg, t, 0);
   ENTRY.own = seg >= 0 && !fromLeaf;
@@ -105,18 +108,18 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
       br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
     }
     if (seg >= 0 && !br && k !== n - 1) {
-      // the two common cases of entryAt inline (the same expressions): the segment's own cubic, a stand-in leaf
+      // the two common cases of entryAt without its call and ENTRY (the same numbers): the segment's own cubic, a stand-in leaf
       if (poly) {
         const u = t - S[seg];
-        values[k] = poly[0] + u * (poly[1] + u * (poly[2] + u * poly[3]));
-        if (slopes) slopes[k] = poly[1] + u * (2 * poly[2] + 3 * u * poly[3]);
+        values[k] = cubicAt_(poly, u);
+        if (slopes) slopes[k] = cubicSlopeAt_(poly, u);
         if (segs) segs[k] = seg;
         continue;
       }
       if (lf >= 0 && P!.kind[lf] === CUBIC) {
         const o = 4 * lf, c = P!.c, u = t - P!.a[lf];
-        values[k] = c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
-        if (slopes) slopes[k] = c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
+        values[k] = cubicAt_(c, u, o);
+        if (slopes) slopes[k] = cubicSlopeAt_(c, u, o);
         if (segs) segs[k] = -2;
         continue;
       }
@@ -299,10 +302,16 @@ export const MAX_SPOTS = 4;
 const WA = new Float64Array(MAX_SPOTS), WB = new Float64Array(MAX_SPOTS);
 const K0 = new Int32Array(MAX_SPOTS), K1 = new Int32Array(MAX_SPOTS);
 
-/** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
-/** At most this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece), then measures its window first. */
+/** Half the width of a trial window of n entries: 4 grid steps of the source's domain. */
+export function windowHalfWidth(src: BakeSource, n: number): number {
+  const S = src.times;
+  return (4 * (S[S.length - 1] - S[0])) / Math.max(1, n - 1);
+}
+
+/** At most this many entries a trial fills the whole table (cheaper than finding the extremes piece by piece), then measures its windows first. */
 export const WINDOW_MIN_ENTRIES = 64;
 
+/** Trial tables of one curve and profile (f32 and unorm encodings; f16 refuses out-of-range values, so it builds whole tables). */
 export class WindowTrials {
   /** Built on the first window trial that needs the extremes (null: not yet, or not unorm). */
   private pieces: Pieces | null = null;
@@ -395,8 +404,8 @@ export class WindowTrials {
     const src = this.src, S = src.times, ls = this.ls;
     const te = Math.min(t, S[S.length - 1]);
     const m = src.value(ls, te, 1);
-    // finiteSlope returns the derivative itself when it is finite and within the segment's cap, whatever the step
-    if (Number.isFinite(m) && Math.abs(m) <= slopeCaps_(src)[ls]) { this.lastKept = m; return m; }
+    // entrySlope returns the derivative itself then, whatever the grid step
+    if (keepsDerivative_(src, ls, m)) { this.lastKept = m; return m; }
     return entrySlope_(src, t, -1, null, true, ls, this.h);
   }
 
@@ -433,7 +442,7 @@ export class WindowTrials {
       if (this.hermite) qm = makeQuantizer_(e, 0, 0);
     }
     // the windows: [wa, wb] = spot ± 4 grid steps of the source's domain, clipped to it
-    const ws = Math.min(spots.length, MAX_SPOTS), wd = (4 * (S[ns] - S[0])) / Math.max(1, n - 1);
+    const ws = Math.min(spots.length, MAX_SPOTS), wd = windowHalfWidth(src, n);
     for (let i = 0; i < ws; i++) { WA[i] = Math.max(S[0], spots[i] - wd); WB[i] = Math.min(S[ns], spots[i] + wd); }
     if (ws > 0 && n > WINDOW_MIN_ENTRIES) {
       // the entries a window measure reads: from the region holding wa to the first entry ≥ wb; the window is

@@ -40,9 +40,14 @@ export function shiftCubic(c: Float64Array, s: number): Float64Array {
   return c;
 }
 
-/** p(u) by Horner's rule. */
-export function cubicAt(c: Float64Array, u: number): number {
-  return c[0] + u * (c[1] + u * (c[2] + u * c[3]));
+/** p(u) by Horner's rule, for the cubic whose coefficients start at c[o]. */
+export function cubicAt(c: Float64Array, u: number, o = 0): number {
+  return c[o] + u * (c[o + 1] + u * (c[o + 2] + u * c[o + 3]));
+}
+
+/** p′(u) = c1 + u·(2c2 + 3u·c3), for the cubic whose coefficients start at c[o]. */
+export function cubicSlopeAt(c: Float64Array, u: number, o = 0): number {
+  return c[o + 1] + u * (2 * c[o + 2] + 3 * u * c[o + 3]);
 }
 
 /** Result slot for maxAbsCubic: [max |p|, argument u]. Reused to avoid allocation. */

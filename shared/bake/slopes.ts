@@ -47,13 +47,18 @@ export function slopeCaps(src: BakeSource): Float64Array {
   return caps;
 }
 
+/** Whether an entry in segment i takes the derivative m itself as its slope (finite and within the cap; whatever the secant's width). */
+export function keepsDerivative(src: BakeSource, i: number, m: number): boolean {
+  return Number.isFinite(m) && Math.abs(m) <= slopeCaps(src)[i];
+}
+
 /**
  * The slope an entry at t takes from segment i: `m` (the source's derivative there) when finite and
  * within the cap, else the secant from t over w toward side (+1: later times, −1: earlier), clamped
  * to the segment; 0 if even that is not finite.
  */
 export function finiteSlope(src: BakeSource, i: number, t: number, side: 1 | -1, m: number, w: number): number {
-  if (Number.isFinite(m) && Math.abs(m) <= slopeCaps(src)[i]) return m;
+  if (keepsDerivative(src, i, m)) return m;
   const S = src.times;
   const a = S[i], b = S[i + 1];
   let u = side > 0 ? Math.min(t + w, b) : Math.max(t - w, a);

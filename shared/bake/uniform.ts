@@ -10,7 +10,7 @@
  *    always monotone in N (a kink's place against the grid), so the search bisects on "some count among
  *    j − 8 … j passes", which ends at an N that passes while N − 1 … N − 9 all fail.
  *    The estimate stops at the first piece above tol, and a count is first tried on a few entries around
- *    the place where the last rejected count failed (the search spends most counts there).
+ *    each of the last 4 places where a rejected count failed (the search spends most counts there).
  * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed,
  *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
  *    A whole-table estimate also takes the certifying measurement in the same pass (./measure.ts
@@ -34,7 +34,7 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS } from './entries';
+import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS, windowHalfWidth } from './entries';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -142,13 +142,11 @@ export function bakeUniform(
   const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
   // the same window with another stopping figure (./entries.ts: the raw window test of unorm trials)
   const winOther = { ...winOpts };
-  // where the last rejected count was off by more than tol (the error is local: a kink or a fast turn), and
-  // the last few such places, most recent first: a trial measures a window around each before the whole
-  // table (the search's counts fail at a few places in turn)
-  let failAt = Number.NaN;
+  // the last few places where a rejected count was off by more than tol (the error is local: a kink or a
+  // fast turn), most recent first: a trial measures a window around each before the whole table (the
+  // search's counts fail at a few places in turn)
   const spots: number[] = [];
   const failedAt = (x: number): void => {
-    failAt = x;
     const near = (B - A) * 1e-3;
     for (let i = 0; i < spots.length; i++) if (Math.abs(spots[i] - x) <= near) { spots.splice(i, 1); break; }
     spots.unshift(x);
@@ -185,7 +183,7 @@ export function bakeUniform(
     if (table) {
       // look first around the last failures: a window of a few entries there rejects most counts at once
       // (every sample is a true error, so a window above tol is a proof that the whole table fails)
-      const w = (4 * (B - A)) / Math.max(1, n - 1);
+      const w = windowHalfWidth(src, n);
       for (let i = 0; i < spots.length && e === Infinity; i++) {
         const win = measureError_(src, table, winOpts, Math.max(A, spots[i] - w), Math.min(B, spots[i] + w));
         if (win.certified > tol) { e = win.certified; if (i > 0) failedAt(spots[i]); }
@@ -229,7 +227,7 @@ export function bakeUniform(
   // first piece above tol), so the message names the largest count's figure as "at least"
   const none = () => {
     const N = cand.at(cand.size - 1), e = estimates.get(N);
-    const at = Number.isNaN(failAt) ? '' : `, near t = ${Number(failAt.toPrecision(4))} s`;
+    const at = spots.length === 0 ? '' : `, near t = ${Number(spots[0].toPrecision(4))} s`;
     return `curve "${src.name}": no uniform table of at most ${N} entries stays within ${tol.toPrecision(3)} (with ${N} entries the error is still at least ${e === undefined ? 'unknown' : e.toPrecision(3)}${at}); use the adaptive layout or a larger tolerance`;
   };
   let lo = -1, hi = -1;
