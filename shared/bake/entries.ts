@@ -281,11 +281,14 @@ function nextStamp(): void {
 /** The running [min, max] of WindowTrials.extremes. */
 const EXT = new Float64Array(2);
 
-/** Decoded copies DV, DM of the entries XV, XM in [k0, k1). */
-function decode(qv: Quantizer, qm: Quantizer | null, k0: number, k1: number): void {
-  DV.set(XV.subarray(k0, k1), k0);
-  roundTrip(qv, DV, k0, k1);
-  if (qm) { DM.set(XM.subarray(k0, k1), k0); roundTrip(qm, DM, k0, k1); }
+/** Copies DV, DM of the entries XV, XM in [k0, k1): decoded with qv, qm, or as they are (raw). */
+function decode(qv: Quantizer | null, qm: Quantizer | null, k0: number, k1: number, slopes: boolean): void {
+  for (let k = k0; k < k1; k++) DV[k] = XV[k];
+  if (qv) roundTrip(qv, DV, k0, k1);
+  if (slopes) {
+    for (let k = k0; k < k1; k++) DM[k] = XM[k];
+    if (qm) roundTrip(qm, DM, k0, k1);
+  }
 }
 
 export interface TrialOutcome {
@@ -319,9 +322,8 @@ export class WindowTrials {
   private readonly hermite: boolean;
   private readonly ls: number;
   private n = 0;
-  /** The current trial's grid: first and last time (float32 of the source's ends) and step. */
+  /** The current trial's grid: first time (float32 of the source's start) and step; its times are in T. */
   private A = 0;
-  private B = 0;
   private h = 0;
 
   static applies(profile: Profile): boolean {
@@ -334,19 +336,14 @@ export class WindowTrials {
     this.ls = lastSegment(src);
   }
 
-  /** Time of entry k of the current trial: the numbers run() writes into T for a whole table. */
-  private tAt(k: number): number {
-    return k === this.n - 1 ? this.B : this.A + k * this.h;
-  }
-
-  /** First index k < n with tAt(k) ≥ x (n when none): lowerBound over the grid without the array (tAt is non-decreasing). */
+  /** First index k < n with T[k] ≥ x (n when none): lowerBound over the grid, started at the grid's guess. */
   private lb(x: number): number {
     const n = this.n;
     let k = Math.ceil((x - this.A) / this.h);
     if (!(k >= 0)) k = 0;
     if (k > n) k = n;
-    while (k > 0 && this.tAt(k - 1) >= x) k--;
-    while (k < n && this.tAt(k) < x) k++;
+    while (k > 0 && T[k - 1] >= x) k--;
+    while (k < n && T[k] < x) k++;
     return k;
   }
 
@@ -354,7 +351,7 @@ export class WindowTrials {
   private fill(k: number): void {
     if (STAMP[k] === stamp) return;
     const src = this.src, S = src.times, ns = S.length - 1, P = this.P;
-    const t = this.tAt(k);
+    const t = T[k];
     let seg = -1, lf = -1;
     if (t >= S[0] && t < S[ns]) {
       // the largest i < ns with S_i ≤ t (the segment fillEntries' walk reaches)
@@ -375,8 +372,7 @@ export class WindowTrials {
   private fillWith(k: number, seg: number, lf: number): void {
     STAMP[k] = stamp;
     const src = this.src, P = this.P;
-    const t = this.tAt(k);
-    T[k] = t;
+    const t = T[k];
     let br: Break | null = null;
     if (this.hermite) {
       const B = this.breaks;
@@ -430,8 +426,9 @@ export class WindowTrials {
     this.n = n;
     const A = Math.fround(S[0]), B = Math.fround(S[ns]);
     const h = (B - A) / (n - 1);
-    // the times T[k] = A + k·h (T[n − 1] = B) are written only where an entry is filled, until the whole table is
-    this.A = A; this.B = B;
+    for (let k = 0; k < n; k++) T[k] = A + k * h;
+    T[n - 1] = B;
+    this.A = A;
     // fillEntries' grid step, (T[n − 1] − T[0])/(n − 1) from the stored times: the same number as h
     this.h = h;
     nextStamp();
@@ -444,24 +441,21 @@ export class WindowTrials {
     // the windows: [wa, wb] = spot ± 4 grid steps of the source's domain, clipped to it
     const ws = Math.min(spots.length, MAX_SPOTS), wd = windowHalfWidth(src, n);
     for (let i = 0; i < ws; i++) { WA[i] = Math.max(S[0], spots[i] - wd); WB[i] = Math.min(S[ns], spots[i] + wd); }
+    // one view of the trial's table: a window measure reads only the entries [k0, k1) of its window (from
+    // the region holding wa to the first entry ≥ wb), so only those need to be filled and decoded
+    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     if (ws > 0 && n > WINDOW_MIN_ENTRIES) {
-      // the entries a window measure reads: from the region holding wa to the first entry ≥ wb; the window is
-      // measured on the table of these entries alone (T[k0] < wa unless k0 = 0, and T[k1 − 1] ≥ wb unless
-      // k1 = n, so every region of [wa, wb] and its two entries are the same as in the whole table)
-      for (let i = 0; i < ws; i++) {
-        const k0 = Math.max(0, this.lb(WA[i]) - 1), k1 = Math.min(n, this.lb(WB[i]) + 1);
-        K0[i] = k0; K1[i] = k1;
-        for (let k = k0; k < k1; k++) this.fill(k);
-      }
+      for (let i = 0; i < ws; i++) { K0[i] = Math.max(0, this.lb(WA[i]) - 1); K1[i] = Math.min(n, this.lb(WB[i]) + 1); }
       if (this.unorm) {
         this.pieces ??= makePieces(src, this.P);
         const d = this.quantizeShift(n);
         if (d < 0.5 * tol) {
+          // each window filled when it is reached: most counts are rejected by the first
           for (let i = 0; i < ws; i++) {
             const k0 = K0[i], k1 = K1[i];
-            DV.set(XV.subarray(k0, k1), k0);
-            if (this.hermite) DM.set(XM.subarray(k0, k1), k0);
-            const w = window(this.part(k0, k1), tol + d, WA[i], WB[i]);
+            this.fillRange(k0, k1);
+            decode(null, null, k0, k1, this.hermite);
+            const w = window(view, tol + d, WA[i], WB[i]);
             if (w > tol + d) return { e: w - d, fullAt: null, spot: i };
           }
         }
@@ -471,14 +465,12 @@ export class WindowTrials {
       }
       for (let i = 0; i < ws; i++) {
         const k0 = K0[i], k1 = K1[i];
-        decode(qv!, qm, k0, k1);
-        const w = window(this.part(k0, k1), tol, WA[i], WB[i]);
+        this.fillRange(k0, k1);
+        decode(qv, qm, k0, k1, this.hermite);
+        const w = window(view, tol, WA[i], WB[i]);
         if (w > tol) return { e: w, fullAt: null, spot: i };
       }
     }
-    for (let k = 0; k < n; k++) T[k] = A + k * h;
-    T[n - 1] = B;
-    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
     // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
     fillEntries(src, this.P, T.subarray(0, n), XV.subarray(0, n), this.hermite ? XM.subarray(0, n) : null, this.breaks);
     if (!qv) {
@@ -487,7 +479,7 @@ export class WindowTrials {
       qv = makeQuantizer_(e, vlo, vhi);
       if (this.hermite) { const [mlo, mhi] = minMax_(XM.subarray(0, n)); qm = makeQuantizer_(e, mlo, mhi); }
     }
-    decode(qv, qm, 0, n);
+    decode(qv, qm, 0, n, this.hermite);
     // a small table is filled whole, but the windows still reject most counts before the whole measure
     if (n <= WINDOW_MIN_ENTRIES) {
       for (let i = 0; i < ws; i++) {
@@ -499,9 +491,9 @@ export class WindowTrials {
     return { e: m.e, fullAt: m.at, spot: -1 };
   }
 
-  /** The trial's table of entries [k0, k1) (decoded numbers in DV, DM). */
-  private part(k0: number, k1: number): TrialView {
-    return { kernel: this.profile.kernel, times: T.subarray(k0, k1), values: DV.subarray(k0, k1), slopes: this.hermite ? DM.subarray(k0, k1) : null };
+  /** Fill entries [k0, k1) not yet filled in this trial. */
+  private fillRange(k0: number, k1: number): void {
+    for (let k = k0; k < k1; k++) if (STAMP[k] !== stamp) this.fill(k);
   }
 
   /**
@@ -534,7 +526,7 @@ export class WindowTrials {
     if (o === 1) {
       this.take(X, n - 1, n);
       const B = this.breaks;
-      for (let j = 0; j < B.length; j++) { const k = this.lb(B[j].time); if (k < n && this.tAt(k) === B[j].time) this.take(X, k, k + 1); }
+      for (let j = 0; j < B.length; j++) { const k = this.lb(B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
     }
   }
 
@@ -564,7 +556,7 @@ export class WindowTrials {
   private takePiece(X: Float64Array, q: number, k0: number, k1: number, flat: boolean, n: number): void {
     const P = this.pieces!, seg = P.seg[q], lf = P.leaf[q];
     if (flat) {
-      const k = k0 < n && this.tAt(k0) > P.a[q] ? k0 : k0 + 1;
+      const k = k0 < n && T[k0] > P.a[q] ? k0 : k0 + 1;
       if (k < k1 && k < n - 1) { k0 = k; k1 = k + 1; }
     }
     for (let k = k0; k < k1; k++) {

@@ -2,7 +2,9 @@
  * Window trials (shared/bake/entries.ts) read the same numbers as a fully built table: for random curves
  * of every segment kind, unorm and f32 profiles and random counts, the entries a window trial fills, and
  * all entries when it measures the whole table, equal the decoded entries of uniformTable for that count
- * (which finds the unorm quantizer from the minimum and maximum of every entry). Tables of at most
+ * (which finds the unorm quantizer from the minimum and maximum of every entry). A window is measured on
+ * the trial's whole table, of which only the entries the window reads are filled: with every other entry
+ * made NaN the window's figure is still that of the whole built table. Tables of at most
  * WINDOW_MIN_ENTRIES (./entries.ts) entries are filled whole before their window is measured. For unorm, the window first
  * seen before quantization holds numbers within half a code step of the quantized ones, and its estimate
  * is within the shift run() allows for of the quantized window's (the proof behind the raw window test).
@@ -45,13 +47,23 @@ describe('window trials fill the numbers of the whole table', () => {
         const w = (4 * (B - A)) / (n - 1);
         const windows = spots.map((c) => [Math.max(A, c - w), Math.min(B, c + w)]);
         let windowChecked = 0;
-        // view entry j against table entry o + j (a window trial may measure the table of its window's entries alone)
-        const same = (v: TrialView, j: number, o = 0) => {
-          expect(v.times[j]).toBe(want.times[o + j]);
-          expect(v.values[j]).toBe(want.values[o + j]);
-          if (p.kernel === 'hermite') expect(v.slopes![j]).toBe(want.slopes![o + j]);
+        // view entry j against table entry j
+        const same = (v: TrialView, j: number) => {
+          expect(v.times[j]).toBe(want.times[j]);
+          expect(v.values[j]).toBe(want.values[j]);
+          if (p.kernel === 'hermite') expect(v.slopes![j]).toBe(want.slopes![j]);
         };
-        const offset = (v: TrialView) => { const o = Array.prototype.indexOf.call(want.times, v.times[0]); expect(o).toBeGreaterThanOrEqual(0); return o; };
+        // the entries a measure of [wa, wb] reads: from the last entry before wa to the first at or after wb
+        const reads = (wa: number, wb: number): [number, number] => {
+          const lb = (x: number) => { let k = 0; while (k < n && want.times[k] < x) k++; return k; };
+          return [Math.max(0, lb(wa) - 1), Math.min(n, lb(wb) + 1)];
+        };
+        // the view with every entry outside [k0, k1) made NaN (a measure that read one would give NaN → Infinity)
+        const poisoned = (v: TrialView, k0: number, k1: number): TrialView => {
+          const values = Float64Array.from(v.values), slopes = v.slopes ? Float64Array.from(v.slopes) : null;
+          for (let k = 0; k < n; k++) if (k < k0 || k >= k1) { values[k] = Number.NaN; if (slopes) slopes[k] = Number.NaN; }
+          return { kernel: v.kernel, times: v.times, values, slopes };
+        };
         const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
         const raw: number[] = [];
         let shift = Number.NaN, quantized = 0;
@@ -60,25 +72,28 @@ describe('window trials fill the numbers of the whole table', () => {
             // the windows come in the spots' order, first all before quantization (unorm), then all after
             const i = stop !== tol ? raw.length : quantized++;
             expect([wa, wb]).toEqual(windows[i]);
+            // the whole trial table, every time written; the window reads [k0, k1) alone
+            expect(v.times.length).toBe(n);
+            for (let k = 0; k < n; k++) expect(v.times[k]).toBe(want.times[k]);
+            const [k0, k1] = reads(wa, wb);
+            expect(k1).toBeGreaterThan(k0);
+            const figure = measureError(src, v, estOpts, wa, wb).certified;
+            expect(measureError(src, poisoned(v, k0, k1), estOpts, wa, wb).certified).toBe(figure);
             if (stop !== tol) {
               // the unorm window before quantization: each number within half a code step (scale/(2M)) of the
               // quantized one; pass on (figure 0) so that the quantized window is measured as well
               const M = p.encoding === 'unorm8' ? 255 : 65535;
               const sv = want.values.length > 1 ? (Math.max(...want.values) - Math.min(...want.values)) / (2 * M) : 0;
-              const o = offset(v);
-              for (let j = 0; j < v.times.length; j++) expect(Math.abs(v.values[j] - want.values[o + j])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
-              raw.push(measureError(src, v, estOpts, wa, wb).certified);
+              for (let j = k0; j < k1; j++) expect(Math.abs(v.values[j] - want.values[j])).toBeLessThanOrEqual(sv * (1 + 1e-6) + 1e-12);
+              raw.push(figure);
               shift = stop - tol;
               return 0;
             }
-            // small tables are filled whole before the window is measured
-            const o = offset(v);
-            // the window's table reaches past [wa, wb] on both sides (or to the table's own ends)
-            expect(v.times[0] <= wa || o === 0).toBe(true);
-            expect(v.times[v.times.length - 1] >= wb || o + v.times.length === n).toBe(true);
-            for (let j = 0; j < v.times.length; j++) { same(v, j, o); windowChecked++; }
+            // the numbers the window reads are the built table's, and so is its figure
+            for (let j = k0; j < k1; j++) { same(v, j); windowChecked++; }
+            expect(figure).toBe(measureError(src, want, estOpts, wa, wb).certified);
             // quantizing moves the window's estimate by at most the shift the raw test allows for
-            if (raw.length > 0) { expect(Math.abs(measureError(src, v, estOpts, wa, wb).certified - raw[i])).toBeLessThanOrEqual(shift); rawChecked++; }
+            if (raw.length > 0) { expect(Math.abs(figure - raw[i])).toBeLessThanOrEqual(shift); rawChecked++; }
             // pass on to the next window; the last one rejects, so the whole table is not filled
             return i === spots.length - 1 ? Infinity : 0;
           },
