@@ -118,6 +118,8 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
 let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
+/** The stand-in leaf proxyPiece started from last in this measurement (−1: none yet). */
+let leafCursor = -1;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
 let splitBudget = 0;
 /**
@@ -150,28 +152,49 @@ export function recorded(): { maxError: number; certified: number } { return { m
 /** Reset the figures record() folds into (measureError does this itself). */
 export function resetRecord(): void { bestErr = 0; bestAt = 0; certified = 0; }
 
-/** Exact piece: source cubic of segment i minus table cubic (TAB already at origin x0). */
-function exactPiece(src: BakeSource, i: number, x0: number, x1: number): void {
-  const p = src.poly(i)!;
-  SRC[0] = p[0]; SRC[1] = p[1]; SRC[2] = p[2]; SRC[3] = p[3];
-  shiftCubic_(SRC, x0 - src.times[i]);
-  DIFF[0] = SRC[0] - TAB[0]; DIFF[1] = SRC[1] - TAB[1]; DIFF[2] = SRC[2] - TAB[2]; DIFF[3] = SRC[3] - TAB[3];
+/**
+ * Exact piece: the source cubic p of its segment (about the segment's start s0) minus the table cubic
+ * (TAB already at origin x0). The source cubic is shifted to x0 as shiftCubic does, in locals.
+ */
+function exactPiece(p: Float64Array, s0: number, x0: number, x1: number): void {
+  const s = x0 - s0;
+  let c0 = p[0], c1 = p[1], c2 = p[2];
+  const c3 = p[3];
+  if (s !== 0) {
+    c0 = c0 + s * (c1 + s * (c2 + s * c3));
+    c1 = c1 + s * (2 * c2 + 3 * s * c3);
+    c2 = c2 + 3 * s * c3;
+  }
+  const d0 = c0 - TAB[0], d1 = c1 - TAB[1], d2 = c2 - TAB[2], d3 = c3 - TAB[3];
+  const L = x1 - x0;
   // a piece whose error cannot reach the figures already found changes nothing (see cubicBound)
-  const ub = cubicBound(DIFF, x1 - x0);
+  const ub = cubicBound(d0, d1, d2, d3, L);
   if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) return;
-  const e = maxAbsCubic_(DIFF, x1 - x0);
+  DIFF[0] = d0; DIFF[1] = d1; DIFF[2] = d2; DIFF[3] = d3;
+  const e = maxAbsCubic_(DIFF, L);
   record(e, x0 + MAX_SLOT[1], e);
   if (dual) recordCert(e, x0 + MAX_SLOT[1], e);
 }
 
 /**
- * An upper bound of max |d(u)| over [0, L]: |d0| + |d1|·L + |d2|·L² + |d3|·L³ (triangle inequality),
- * inflated by 1e-12 so it also covers the rounding of the exact maximum computed in doubles. A piece
- * whose bound is at most both figures recorded so far cannot change them (record() keeps the first of
- * equal errors), so skipping it leaves every result the same. NaN never skips.
+ * An upper bound of max |d(u)| over [0, L] for d(u) = d0 + d1·u + d2·u² + d3·u³, as maxAbsCubic computes
+ * it. In Bernstein form on [0, L] the cubic lies in the convex hull of its coefficients b0 = d0,
+ * b1 = d0 + a1/3, b2 = d0 + (2a1 + a2)/3, b3 = d0 + a1 + a2 + a3 with aⱼ = dⱼ·Lʲ (Farin, Curves and
+ * Surfaces for CAGD, §5 — from memory), so max |d| ≤ max |bᵢ|. Added: 1e-12·(|d0| + |a1| + |a2| + |a3|)
+ * + 1e-300, far above the rounding of these sums and of the maximum maxAbsCubic evaluates in doubles
+ * (Horner's rule at u ∈ [0, L] errs by a few ulps of that sum). A piece whose bound is at most both
+ * figures recorded so far cannot change them (record() keeps the first of equal errors), so skipping it
+ * leaves every result the same. NaN never skips.
  */
-function cubicBound(d: Float64Array, L: number): number {
-  return (Math.abs(d[0]) + L * (Math.abs(d[1]) + L * (Math.abs(d[2]) + L * Math.abs(d[3])))) * (1 + 1e-12);
+export function cubicBound(d0: number, d1: number, d2: number, d3: number, L: number): number {
+  const a1 = d1 * L, a2 = d2 * L * L, a3 = d3 * L * L * L;
+  const b1 = d0 + a1 / 3, b2 = d0 + (2 * a1 + a2) / 3, b3 = d0 + a1 + a2 + a3;
+  let m = Math.abs(d0);
+  const m1 = Math.abs(b1), m2 = Math.abs(b2), m3 = Math.abs(b3);
+  if (!(m1 <= m)) m = m1;
+  if (!(m2 <= m)) m = m2;
+  if (!(m3 <= m)) m = m3;
+  return m + 1e-12 * (Math.abs(d0) + Math.abs(a1) + Math.abs(a2) + Math.abs(a3)) + 1e-300;
 }
 
 /**
@@ -264,24 +287,39 @@ function proxyPiece(
   src: BakeSource, P: Proxy, i: number, x0: number, x1: number, slackAbs: number, maxSamples: number, estimate: boolean,
 ): void {
   sampledUsed = true;
-  const A = P.a, Bq = P.b, C = P.c, E = P.err;
-  // the first leaf of segment i ending after x0 (bisection over the segment's leaves)
-  let lo = P.first[i], hi = P.first[i + 1];
-  while (lo < hi) { const mid = (lo + hi) >> 1; if (Bq[mid] <= x0) lo = mid + 1; else hi = mid; }
-  for (let k = lo; k < P.first[i + 1] && A[k] < x1; k++) {
+  const A = P.a, Bq = P.b, C = P.c, E = P.err, end = P.first[i + 1];
+  // the first leaf of segment i ending after x0: pieces come in increasing x0, so the leaf cursor of the
+  // measurement only moves forward (the same leaf a bisection over the segment's leaves finds)
+  let lo = leafCursor < P.first[i] ? P.first[i] : leafCursor;
+  while (lo < end && Bq[lo] <= x0) lo++;
+  leafCursor = lo;
+  for (let k = lo; k < end && A[k] < x1; k++) {
     const y0 = A[k] > x0 ? A[k] : x0, y1 = Bq[k] < x1 ? Bq[k] : x1;
     if (!(y1 > y0)) continue;
     if (P.kind[k] === SAMPLED) { sampledPiece(src, i, y0, y1, x0, slackAbs, maxSamples, estimate, 0); continue; }
-    const o = 4 * k;
-    SRC[0] = C[o]; SRC[1] = C[o + 1]; SRC[2] = C[o + 2]; SRC[3] = C[o + 3];
-    shiftCubic_(SRC, y0 - A[k]);
-    TAB2[0] = TAB[0]; TAB2[1] = TAB[1]; TAB2[2] = TAB[2]; TAB2[3] = TAB[3];
-    shiftCubic_(TAB2, y0 - x0);
-    DIFF[0] = SRC[0] - TAB2[0]; DIFF[1] = SRC[1] - TAB2[1]; DIFF[2] = SRC[2] - TAB2[2]; DIFF[3] = SRC[3] - TAB2[3];
+    // the leaf's cubic and the table's, both shifted to y0 (as shiftCubic does), in locals
+    const o = 4 * k, s = y0 - A[k], r = y0 - x0;
+    let q0 = C[o], q1 = C[o + 1], q2 = C[o + 2];
+    const q3 = C[o + 3];
+    if (s !== 0) {
+      q0 = q0 + s * (q1 + s * (q2 + s * q3));
+      q1 = q1 + s * (2 * q2 + 3 * s * q3);
+      q2 = q2 + 3 * s * q3;
+    }
+    let p0 = TAB[0], p1 = TAB[1], p2 = TAB[2];
+    const p3 = TAB[3];
+    if (r !== 0) {
+      p0 = p0 + r * (p1 + r * (p2 + r * p3));
+      p1 = p1 + r * (2 * p2 + 3 * r * p3);
+      p2 = p2 + 3 * r * p3;
+    }
+    const d0 = q0 - p0, d1 = q1 - p1, d2 = q2 - p2, d3 = q3 - p3;
+    const L = y1 - y0, Ek = E[k];
     // skip a leaf whose figures cannot exceed those found so far (cubicBound); the estimate records e − ε, the proof e + ε
-    const ub = cubicBound(DIFF, y1 - y0);
-    if (estimate ? ub - E[k] <= bestErr && ub - E[k] <= certified && (!dual || (ub <= cBest && ub + E[k] <= cCert)) : ub <= bestErr && ub + E[k] <= certified) continue;
-    const e = maxAbsCubic_(DIFF, y1 - y0);
+    const ub = cubicBound(d0, d1, d2, d3, L);
+    if (estimate ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert)) : ub <= bestErr && ub + Ek <= certified) continue;
+    DIFF[0] = d0; DIFF[1] = d1; DIFF[2] = d2; DIFF[3] = d3;
+    const e = maxAbsCubic_(DIFF, L);
     const at = y0 + MAX_SLOT[1];
     if (estimate) {
       const low = e - E[k] > 0 ? e - E[k] : 0;
@@ -336,7 +374,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const maxSamples = opts.maxSamples ?? 256;
   const K = tab.times;
   const nk = K.length;
-  bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000;
+  bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
   dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
@@ -356,7 +394,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   pieces: for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
     if (!(b > a)) continue;
-    const exact = src.poly(i) !== null;
+    const poly = src.poly(i), exact = poly !== null, s0 = S[i];
     // walk table regions overlapping [a, b]
     while (k >= 0 && K[k] > a) k--;
     while (k + 1 < nk && K[k + 1] <= a) k++;
@@ -374,7 +412,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
           hT0 = K[k]; hS0 = KS![k]; hV0 = KV[k];
           hT1 = K[k + 1]; hS1 = KS![k + 1]; hV1 = KV[k + 1];
         } else { hT0 = hT1 = Number.NaN; }
-        if (exact) exactPiece(src, i, x0, x1);
+        if (exact) exactPiece(poly, s0, x0, x1);
         else {
           if (!proxy) proxy = proxyFor_(src, slackAbs);
           proxyPiece(src, proxy, i, x0, x1, estimate ? tolAbs : slackAbs, maxSamples, estimate);

@@ -10,7 +10,8 @@ import {
   writePack, readPack, C_EVALUATOR, writeGltfPack, cssCurve, makeQuantizer, encodeArray, type Profile, type BakeSource,
 } from '../../../shared/bake';
 import { sourceValue } from '../../../shared/bake/source';
-import { lastCertified } from '../../../shared/bake/measure';
+import { cubicBound, lastCertified } from '../../../shared/bake/measure';
+import { maxAbsCubic } from '../../../shared/bake/poly';
 import { bakeUniform, uniformTable } from '../../../shared/bake/uniform';
 import { findBreaks } from '../../../shared/bake/breaks';
 import { randomCurve, rng } from '../../../bench/library';
@@ -103,6 +104,29 @@ describe('exact error routine', () => {
       // agreement: the dense grid gets within its resolution of the exact maximum, measured at its argmax
       expect(Math.abs(sourceValue(src, m.at) - evalTable(tab, m.at)) - m.maxError).toBeLessThan(1e-9 + m.maxError * 1e-6 + 1e-6);
     }), { numRuns: 150 });
+  });
+
+  it('the bound a measure skips pieces by is never below the maximum maxAbsCubic computes (fast-check)', () => {
+    // the difference of two nearby cubics (a table against its source: large terms, small difference) and
+    // arbitrary ones; the skip is output-neutral only if the bound holds for the computed maximum itself
+    const coef = fc.double({ min: -1e3, max: 1e3, noNaN: true });
+    fc.assert(fc.property(
+      fc.tuple(coef, coef, coef, coef), fc.tuple(coef, coef, coef, coef), fc.double({ min: 0, max: 1, noNaN: true }),
+      fc.double({ min: 1e-6, max: 20, noNaN: true }),
+      (p, q, near, L) => {
+        const d = p.map((x, j) => x - (x + near * 1e-6 * q[j]) * (1 - near * 1e-9)) as [number, number, number, number];
+        for (const c of [d, p]) {
+          const b = cubicBound(c[0], c[1], c[2], c[3], L);
+          const e = maxAbsCubic(Float64Array.from(c), L);
+          expect(b).toBeGreaterThanOrEqual(e);
+          // and never looser than the triangle inequality |c0| + |c1|L + |c2|L² + |c3|L³ (with its margin)
+          const tri = Math.abs(c[0]) + Math.abs(c[1]) * L + Math.abs(c[2]) * L * L + Math.abs(c[3]) * L * L * L;
+          expect(b).toBeLessThanOrEqual(tri * (1 + 1e-11) + 1e-299);
+        }
+      }), { numRuns: 3000, seed: 99 });
+    // NaN never skips: the bound is NaN (every comparison false)
+    expect(cubicBound(0, Number.NaN, 0, 0, 1)).toBeNaN();
+    expect(cubicBound(0, 0, 0, Number.NaN, 1)).toBeNaN();
   });
 
   it('an estimate that also certifies gives both measurements of a separate pass each (fast-check)', () => {
