@@ -271,7 +271,14 @@ function ensure(n: number): void {
     T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
     STAMP = new Uint32Array(cap);
     stamp = 0;
+    viewsH = []; viewsL = [];
   }
+}
+/** Views of the first n entries of T, DV (and DM for hermite), by n: reused by every trial of that count until the buffers grow. */
+let viewsH: (TrialView | undefined)[] = [], viewsL: (TrialView | undefined)[] = [];
+function viewOf(n: number, hermite: boolean): TrialView {
+  const views = hermite ? viewsH : viewsL;
+  return views[n] ??= { kernel: hermite ? 'hermite' : 'linear', times: T.subarray(0, n), values: DV.subarray(0, n), slopes: hermite ? DM.subarray(0, n) : null };
 }
 /** A new trial: every entry unfilled. */
 function nextStamp(): void {
@@ -303,7 +310,7 @@ export interface TrialOutcome {
 /** Most windows (failure spots) a trial measures first. */
 export const MAX_SPOTS = 4;
 const WA = new Float64Array(MAX_SPOTS), WB = new Float64Array(MAX_SPOTS);
-const K0 = new Int32Array(MAX_SPOTS), K1 = new Int32Array(MAX_SPOTS);
+const K0 = new Int32Array(MAX_SPOTS), K1 = new Int32Array(MAX_SPOTS), R = new Int32Array(MAX_SPOTS);
 
 /** Half the width of a trial window of n entries: 4 grid steps of the source's domain. */
 export function windowHalfWidth(src: BakeSource, n: number): number {
@@ -322,8 +329,9 @@ export class WindowTrials {
   private readonly hermite: boolean;
   private readonly ls: number;
   private n = 0;
-  /** The current trial's grid: first time (float32 of the source's start) and step; its times are in T. */
+  /** The current trial's grid: first and last time (float32 of the source's ends) and step. */
   private A = 0;
+  private B = 0;
   private h = 0;
 
   static applies(profile: Profile): boolean {
@@ -336,22 +344,33 @@ export class WindowTrials {
     this.ls = lastSegment(src);
   }
 
-  /** First index k < n with T[k] ≥ x (n when none): lowerBound over the grid, started at the grid's guess. */
+  /** Time of entry k of the current trial: the numbers run() writes into T for a whole table. */
+  private tAt(k: number): number {
+    return k === this.n - 1 ? this.B : this.A + k * this.h;
+  }
+
+  /** First index k < n with tAt(k) ≥ x (n when none): lowerBound over the grid without the array (tAt is non-decreasing). */
   private lb(x: number): number {
     const n = this.n;
     let k = Math.ceil((x - this.A) / this.h);
     if (!(k >= 0)) k = 0;
     if (k > n) k = n;
-    while (k > 0 && T[k - 1] >= x) k--;
-    while (k < n && T[k] < x) k++;
+    while (k > 0 && this.tAt(k - 1) >= x) k--;
+    while (k < n && this.tAt(k) < x) k++;
     return k;
+  }
+
+  /** The table region holding x: the largest k with tAt(k) ≤ x (−1 when none; the times increase). */
+  private regionAt(x: number): number {
+    const k = this.lb(x);
+    return k < this.n && this.tAt(k) === x ? k : k - 1;
   }
 
   /** Fill entry k (value and slope) if not yet filled, with the same numbers fillEntries gives. */
   private fill(k: number): void {
     if (STAMP[k] === stamp) return;
     const src = this.src, S = src.times, ns = S.length - 1, P = this.P;
-    const t = T[k];
+    const t = this.tAt(k);
     let seg = -1, lf = -1;
     if (t >= S[0] && t < S[ns]) {
       // the largest i < ns with S_i ≤ t (the segment fillEntries' walk reaches)
@@ -372,7 +391,8 @@ export class WindowTrials {
   private fillWith(k: number, seg: number, lf: number): void {
     STAMP[k] = stamp;
     const src = this.src, P = this.P;
-    const t = T[k];
+    const t = this.tAt(k);
+    T[k] = t;
     let br: Break | null = null;
     if (this.hermite) {
       const B = this.breaks;
@@ -420,15 +440,14 @@ export class WindowTrials {
    * figure above tol + δ proves the quantized figure above tol: the same counts are rejected as by the
    * quantized window, with the figure less δ as the outcome (still a lower bound of the error).
    */
-  run(n: number, spots: readonly number[], tol: number, window: (v: TrialView, stopAbove: number, wa: number, wb: number) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
+  run(n: number, spots: readonly number[], tol: number, window: (v: TrialView, stopAbove: number, wa: number, wb: number, region: number) => number, full: (v: TrialView) => { e: number; at: number }): TrialOutcome {
     const src = this.src, S = src.times, ns = S.length - 1;
     ensure(n);
     this.n = n;
     const A = Math.fround(S[0]), B = Math.fround(S[ns]);
     const h = (B - A) / (n - 1);
-    for (let k = 0; k < n; k++) T[k] = A + k * h;
-    T[n - 1] = B;
-    this.A = A;
+    // the times T[k] = A + k·h (T[n − 1] = B) are written where an entry is filled, until the whole table is
+    this.A = A; this.B = B;
     // fillEntries' grid step, (T[n − 1] − T[0])/(n − 1) from the stored times: the same number as h
     this.h = h;
     nextStamp();
@@ -441,11 +460,12 @@ export class WindowTrials {
     // the windows: [wa, wb] = spot ± 4 grid steps of the source's domain, clipped to it
     const ws = Math.min(spots.length, MAX_SPOTS), wd = windowHalfWidth(src, n);
     for (let i = 0; i < ws; i++) { WA[i] = Math.max(S[0], spots[i] - wd); WB[i] = Math.min(S[ns], spots[i] + wd); }
-    // one view of the trial's table: a window measure reads only the entries [k0, k1) of its window (from
-    // the region holding wa to the first entry ≥ wb), so only those need to be filled and decoded
-    const view: TrialView = { kernel: this.profile.kernel, times: T.subarray(0, n), values: DV.subarray(0, n), slopes: this.hermite ? DM.subarray(0, n) : null };
+    // one view of the trial's table: a window measure started at the region holding wa (R[i]) reads only
+    // the times and numbers of the entries [k0, k1) of its window (to the first entry ≥ wb), so only those
+    // need to be filled and decoded
+    const view = viewOf(n, this.hermite);
     if (ws > 0 && n > WINDOW_MIN_ENTRIES) {
-      for (let i = 0; i < ws; i++) { K0[i] = Math.max(0, this.lb(WA[i]) - 1); K1[i] = Math.min(n, this.lb(WB[i]) + 1); }
+      for (let i = 0; i < ws; i++) { K0[i] = Math.max(0, this.lb(WA[i]) - 1); K1[i] = Math.min(n, this.lb(WB[i]) + 1); R[i] = this.regionAt(WA[i]); }
       if (this.unorm) {
         this.pieces ??= makePieces(src, this.P);
         const d = this.quantizeShift(n);
@@ -455,7 +475,7 @@ export class WindowTrials {
             const k0 = K0[i], k1 = K1[i];
             this.fillRange(k0, k1);
             decode(null, null, k0, k1, this.hermite);
-            const w = window(view, tol + d, WA[i], WB[i]);
+            const w = window(view, tol + d, WA[i], WB[i], R[i]);
             if (w > tol + d) return { e: w - d, fullAt: null, spot: i };
           }
         }
@@ -467,10 +487,12 @@ export class WindowTrials {
         const k0 = K0[i], k1 = K1[i];
         this.fillRange(k0, k1);
         decode(qv, qm, k0, k1, this.hermite);
-        const w = window(view, tol, WA[i], WB[i]);
+        const w = window(view, tol, WA[i], WB[i], R[i]);
         if (w > tol) return { e: w, fullAt: null, spot: i };
       }
     }
+    for (let k = 0; k < n; k++) T[k] = A + k * h;
+    T[n - 1] = B;
     // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
     fillEntries(src, this.P, T.subarray(0, n), XV.subarray(0, n), this.hermite ? XM.subarray(0, n) : null, this.breaks);
     if (!qv) {
@@ -483,7 +505,7 @@ export class WindowTrials {
     // a small table is filled whole, but the windows still reject most counts before the whole measure
     if (n <= WINDOW_MIN_ENTRIES) {
       for (let i = 0; i < ws; i++) {
-        const w = window(view, tol, WA[i], WB[i]);
+        const w = window(view, tol, WA[i], WB[i], this.regionAt(WA[i]));
         if (w > tol) return { e: w, fullAt: null, spot: i };
       }
     }
@@ -526,7 +548,7 @@ export class WindowTrials {
     if (o === 1) {
       this.take(X, n - 1, n);
       const B = this.breaks;
-      for (let j = 0; j < B.length; j++) { const k = this.lb(B[j].time); if (k < n && T[k] === B[j].time) this.take(X, k, k + 1); }
+      for (let j = 0; j < B.length; j++) { const k = this.lb(B[j].time); if (k < n && this.tAt(k) === B[j].time) this.take(X, k, k + 1); }
     }
   }
 
@@ -556,7 +578,7 @@ export class WindowTrials {
   private takePiece(X: Float64Array, q: number, k0: number, k1: number, flat: boolean, n: number): void {
     const P = this.pieces!, seg = P.seg[q], lf = P.leaf[q];
     if (flat) {
-      const k = k0 < n && T[k0] > P.a[q] ? k0 : k0 + 1;
+      const k = k0 < n && this.tAt(k0) > P.a[q] ? k0 : k0 + 1;
       if (k < k1 && k < n - 1) { k0 = k; k1 = k + 1; }
     }
     for (let k = k0; k < k1; k++) {

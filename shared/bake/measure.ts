@@ -94,6 +94,12 @@ export interface MeasureOptions {
    * the pass was not stopped and no piece was left to sampling (lastCertified() is null otherwise).
    */
   alsoCertify?: boolean;
+  /**
+   * Optional: the table region holding `from` (the largest k with times[k] ≤ from, −1 when none), when the
+   * caller knows it. The measure then starts there instead of searching the times, and reads no time or
+   * number of an entry before it (nor past the first entry at or after `to`).
+   */
+  startRegion?: number;
 }
 
 type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
@@ -379,7 +385,8 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;
-  {
+  if (opts.startRegion !== undefined) k = opts.startRegion;
+  else {
     let lo = 0, hi = nk;
     while (lo < hi) { const mid = (lo + hi) >> 1; if (K[mid] <= A) lo = mid + 1; else hi = mid; }
     k = lo - 1;

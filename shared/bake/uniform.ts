@@ -28,7 +28,7 @@ import type { BakeSource } from './source';
 import { minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { lastCertified, measureCertified, measureError, proxyDistance, type ErrorMeasure } from './measure';
+import { lastCertified, measureCertified, measureError, proxyDistance, type ErrorMeasure, type MeasureOptions } from './measure';
 import { proxyFor, hasSampledSegments, CUBIC, type Proxy } from './proxy';
 import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
@@ -140,8 +140,9 @@ export function bakeUniform(
   const proofs = new Map<number, ErrorMeasure>();
   const keepProof = (n: number): void => { const c = lastCertified_(); if (c) proofs.set(n, c); };
   const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
-  // the same window with another stopping figure (./entries.ts: the raw window test of unorm trials)
-  const winOther = { ...winOpts };
+  // a window trial's options: its stopping figure (tol, or above it for the raw window test of unorm
+  // trials) and the region holding its start, set per window (./entries.ts WindowTrials.run)
+  const trialWin: MeasureOptions = { ...winOpts };
   // the last few places where a rejected count was off by more than tol (the error is local: a kink or a
   // fast turn), most recent first: a trial measures a window around each before the whole table (the
   // search's counts fail at a few places in turn)
@@ -165,10 +166,10 @@ export function bakeUniform(
     let e = Infinity;
     if (trials) {
       const r = trials.run(n, spots, tol,
-        (v, stop, wa, wb) => {
-          if (stop === tol) return measureCertified_(src, v, winOpts, wa, wb);
-          winOther.stopAbove = stop;
-          return measureCertified_(src, v, winOther, wa, wb);
+        (v, stop, wa, wb, region) => {
+          trialWin.stopAbove = stop;
+          trialWin.startRegion = region;
+          return measureCertified_(src, v, trialWin, wa, wb);
         },
         (v) => { const m = measureError_(src, v, estOpts); keepProof(n); return { e: m.certified, at: m.at }; });
       e = r.e;

@@ -3,8 +3,9 @@
  * of every segment kind, unorm and f32 profiles and random counts, the entries a window trial fills, and
  * all entries when it measures the whole table, equal the decoded entries of uniformTable for that count
  * (which finds the unorm quantizer from the minimum and maximum of every entry). A window is measured on
- * the trial's whole table, of which only the entries the window reads are filled: with every other entry
- * made NaN the window's figure is still that of the whole built table. Tables of at most
+ * the trial's whole table from the region holding its start, and only the entries the window reads are
+ * filled: with the time and numbers of every other entry made NaN the window's figure is still that of the
+ * whole built table. Tables of at most
  * WINDOW_MIN_ENTRIES (./entries.ts) entries are filled whole before their window is measured. For unorm, the window first
  * seen before quantization holds numbers within half a code step of the quantized ones, and its estimate
  * is within the shift run() allows for of the quantized window's (the proof behind the raw window test).
@@ -58,27 +59,31 @@ describe('window trials fill the numbers of the whole table', () => {
           const lb = (x: number) => { let k = 0; while (k < n && want.times[k] < x) k++; return k; };
           return [Math.max(0, lb(wa) - 1), Math.min(n, lb(wb) + 1)];
         };
-        // the view with every entry outside [k0, k1) made NaN (a measure that read one would give NaN → Infinity)
+        // the view with every entry outside [k0, k1) made NaN, its time too (a measure that read one would not give the same figure)
         const poisoned = (v: TrialView, k0: number, k1: number): TrialView => {
-          const values = Float64Array.from(v.values), slopes = v.slopes ? Float64Array.from(v.slopes) : null;
-          for (let k = 0; k < n; k++) if (k < k0 || k >= k1) { values[k] = Number.NaN; if (slopes) slopes[k] = Number.NaN; }
-          return { kernel: v.kernel, times: v.times, values, slopes };
+          const times = Float64Array.from(v.times), values = Float64Array.from(v.values), slopes = v.slopes ? Float64Array.from(v.slopes) : null;
+          for (let k = 0; k < n; k++) if (k < k0 || k >= k1) { times[k] = Number.NaN; values[k] = Number.NaN; if (slopes) slopes[k] = Number.NaN; }
+          return { kernel: v.kernel, times, values, slopes };
         };
         const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
         const raw: number[] = [];
         let shift = Number.NaN, quantized = 0;
         trials.run(n, spots, tol,
-          (v, stop, wa, wb) => {
+          (v, stop, wa, wb, region) => {
             // the windows come in the spots' order, first all before quantization (unorm), then all after
             const i = stop !== tol ? raw.length : quantized++;
             expect([wa, wb]).toEqual(windows[i]);
-            // the whole trial table, every time written; the window reads [k0, k1) alone
+            // the whole trial table, measured from the region holding wa; the window reads [k0, k1) alone
             expect(v.times.length).toBe(n);
-            for (let k = 0; k < n; k++) expect(v.times[k]).toBe(want.times[k]);
+            let holds = -1;
+            while (holds + 1 < n && want.times[holds + 1] <= wa) holds++;
+            expect(region).toBe(holds);
             const [k0, k1] = reads(wa, wb);
             expect(k1).toBeGreaterThan(k0);
-            const figure = measureError(src, v, estOpts, wa, wb).certified;
-            expect(measureError(src, poisoned(v, k0, k1), estOpts, wa, wb).certified).toBe(figure);
+            for (let k = k0; k < k1; k++) expect(v.times[k]).toBe(want.times[k]);
+            const opts = { ...estOpts, startRegion: region };
+            const figure = measureError(src, v, opts, wa, wb).certified;
+            expect(measureError(src, poisoned(v, k0, k1), opts, wa, wb).certified).toBe(figure);
             if (stop !== tol) {
               // the unorm window before quantization: each number within half a code step (scale/(2M)) of the
               // quantized one; pass on (figure 0) so that the quantized window is measured as well
