@@ -44,16 +44,26 @@ export function derivativeBound(src: BakeSource, order: number, a: number, b: nu
   return M;
 }
 
+/** Intervals aprioriBound bounds together first (./bound.ts). */
+const CHUNK = 16;
+
 /**
  * A-priori bound of a table with knot times K (decoded), given the encoding round-off of its values
  * (epsV) and slopes (epsM). `oneSided` says the knot values/slopes at a break are the one-sided ones
  * (adaptive); uniform tables take one value and one slope there, so a break at a knot voids the bound.
+ *
+ * The bound is the largest over the intervals. Runs of CHUNK intervals are bounded first as a whole
+ * (the derivative bound over the run's span and its widest interval bound every interval in it); runs
+ * are then taken largest first, each interval bounded on its own, until a run's bound is at most the
+ * largest interval bound found: no interval of it or of the runs after it can raise the result.
  */
 export function aprioriBound(
   src: BakeSource, kernel: Kernel, K: Float64Array, breaks: readonly Break[], epsV: number, epsM: number, oneSided: boolean,
 ): number | null {
   const limit = kernel === 'linear' ? 1 : 3;
-  let worst = 0;
+  const order = boundOrder(kernel);
+  const remainder = (M: number, h: number): number => interpolationBound(kernel, M, h) + epsV + (kernel === 'hermite' ? (h * epsM) / 4 : 0);
+  // a break inside an interval (or, for one value and slope per entry, on a knot) voids the bound
   let b = 0;
   for (let k = 0; k + 1 < K.length; k++) {
     const a0 = K[k], a1 = K[k + 1];
@@ -66,11 +76,29 @@ export function aprioriBound(
       if (inside) return null;
       if (!oneSided && (br.order === 0 || (br.order === 1 && kernel === 'hermite'))) return null;
     }
-    const h = a1 - a0;
-    const M = derivativeBound(src, boundOrder(kernel), a0, a1);
-    if (!Number.isFinite(M)) return null;
-    const e = interpolationBound(kernel, M, h) + epsV + (kernel === 'hermite' ? (h * epsM) / 4 : 0);
-    if (!(e <= worst)) worst = e; // NaN counts as +Infinity
+  }
+  const intervals = K.length - 1, runs = Math.ceil(intervals / CHUNK);
+  const runBound = new Float64Array(runs);
+  for (let r = 0; r < runs; r++) {
+    const k0 = r * CHUNK, k1 = Math.min(intervals, k0 + CHUNK);
+    let hmax = 0;
+    for (let k = k0; k < k1; k++) if (K[k + 1] - K[k] > hmax) hmax = K[k + 1] - K[k];
+    const M = hmax > 0 ? derivativeBound(src, order, K[k0], K[k1]) : 0;
+    runBound[r] = hmax === 0 ? -Infinity : Number.isFinite(M) ? remainder(M, hmax) : Infinity;
+  }
+  const byBound = Array.from({ length: runs }, (_, r) => r).sort((x, y) => runBound[y] - runBound[x] || x - y);
+  let worst = 0;
+  for (const r of byBound) {
+    if (runBound[r] <= worst) break;
+    for (let k = r * CHUNK; k < Math.min(intervals, (r + 1) * CHUNK); k++) {
+      const a0 = K[k], a1 = K[k + 1];
+      if (!(a1 > a0)) continue;
+      const M = derivativeBound(src, order, a0, a1);
+      if (!Number.isFinite(M)) return null;
+      const e = remainder(M, a1 - a0);
+      if (e !== e) return null; // NaN counts as +Infinity
+      if (e > worst) worst = e;
+    }
   }
   return Number.isFinite(worst) ? worst : null;
 }

@@ -14,6 +14,7 @@ import { cubicBound, lastCertified } from '../../../shared/bake/measure';
 import { maxAbsCubic } from '../../../shared/bake/poly';
 import { bakeUniform, uniformTable } from '../../../shared/bake/uniform';
 import { findBreaks } from '../../../shared/bake/breaks';
+import { aprioriBound, boundOrder, derivativeBound } from '../../../shared/bake/bound';
 import { randomCurve, rng } from '../../../bench/library';
 import { polySource, fnSource, sinFn } from './sources';
 
@@ -79,6 +80,37 @@ describe('a-priori bound: REFERENCES.md interpolation facts (Burden & Faires §3
   it('sinInOut with exact slopes: n = 4 → bound 4.95e-4 (M4 = π⁴/2)', () => {
     expect(interpolationBound('hermite', Math.PI ** 4 / 2, 1 / 4)).toBeCloseTo(4.95e-4, 6);
     expect(interpolationBound('hermite', Math.PI ** 4 / 2, 1 / 8)).toBeCloseTo(3.10e-5, 7);
+  });
+  it("a table's bound is the largest interval bound, however the intervals are grouped (fast-check)", () => {
+    // reference: every interval bounded on its own, M from its overlapping segments (aprioriBound bounds
+    // runs of intervals first and skips those that cannot raise the result)
+    const plain = (src: BakeSource, kernel: Profile['kernel'], K: Float64Array, epsV: number, epsM: number): number | null => {
+      let worst = 0;
+      for (let k = 0; k + 1 < K.length; k++) {
+        const a0 = K[k], a1 = K[k + 1];
+        if (!(a1 > a0)) continue;
+        const M = derivativeBound(src, boundOrder(kernel), a0, a1);
+        if (!Number.isFinite(M)) return null;
+        worst = Math.max(worst, interpolationBound(kernel, M, a1 - a0) + epsV + (kernel === 'hermite' ? ((a1 - a0) * epsM) / 4 : 0));
+      }
+      return worst;
+    };
+    let compared = 0;
+    fc.assert(fc.property(
+      fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('linear', 'hermite', 'bezier', 'shape', undefined),
+      fc.constantFrom('hermite', 'linear'), fc.integer({ min: 2, max: 400 }), fc.double({ min: 0, max: 1e-4, noNaN: true }),
+      (seed, kind, kernel, n, eps) => {
+        const src = sourceFromDocument(randomCurve(rng(seed), `b-${seed}`, kind as never, 6));
+        const A = src.times[0], B = src.times[src.times.length - 1];
+        const K = Float64Array.from({ length: n }, (_, k) => Math.fround(A + ((B - A) * k) / (n - 1)));
+        // no breaks passed: every interval is bounded (breaks only void the bound)
+        const got = aprioriBound(src, kernel as Profile['kernel'], K, [], eps, 2 * eps, true);
+        const want = plain(src, kernel as Profile['kernel'], K, eps, 2 * eps);
+        if (want === null) { expect(got).toBeNull(); return; }
+        expect(got).toBe(want);
+        compared++;
+      }), { numRuns: 300, seed: 515 });
+    expect(compared).toBeGreaterThan(150);
   });
 });
 
