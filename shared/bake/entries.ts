@@ -28,6 +28,7 @@ import { CUBIC, type Proxy } from './proxy';
 import { entrySlope, keepsDerivative } from './slopes';
 import { cubicAt, cubicSlopeAt } from './poly';
 import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, type Quantizer } from './encoding';
+import type { EntryOrigins } from './measure';
 
 const entrySlope_ = entrySlope;
 const keepsDerivative_ = keepsDerivative;
@@ -40,7 +41,7 @@ const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
 const minMax_ = minMax;
 
-export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
+export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> & { origins?: EntryOrigins | null };
 
 /** Index of the last non-empty segment (the end entry's slope comes from it). */
 export function lastSegment(src: BakeSource): number {
@@ -79,10 +80,11 @@ export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number
 
 /**
  * Every entry at `times` (increasing): values, slopes (null for linear) and, with segs, the segment of
- * each entry whose value is the source's own (−2 otherwise, for MeasureOptions.knotValues). Segments,
- * leaves and breaks are found by walking forward with t.
+ * each entry whose value is the source's own (−2 otherwise, for MeasureOptions.knotValues); with fns,
+ * the cubic each entry's value and slope were read from (./measure.ts EntryOrigins). Segments, leaves
+ * and breaks are found by walking forward with t.
  */
-export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array): void {
+export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array, fns?: Int32Array): void {
   const S = src.times, ns = S.length - 1, n = times.length;
   const S0 = S[0], SN = S[ns];
   const w = (times[n - 1] - times[0]) / (n - 1);
@@ -108,22 +110,46 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
       br = b < breaks.length && breaks[b].time === t && breaks[b].right >= 0 ? breaks[b] : null;
     }
     if (seg >= 0 && !br && k !== n - 1) {
-      // the two common cases of entryAt without its call and ENTRY (the same numbers): the segment's own cubic, a stand-in leaf
+      // the two common cases of entryAt without its call and ENTRY (the same numbers): the segment's own
+      // cubic, a stand-in leaf; and so for every following entry before the segment's end, the leaf's end
+      // (unless it is the segment's last) and the next break (hermite), none of them the last entry
+      let lim = S[seg + 1];
+      if (slopes) {
+        let nb = b;
+        while (nb < breaks.length && breaks[nb].time <= t) nb++;
+        if (nb < breaks.length && breaks[nb].time < lim) lim = breaks[nb].time;
+      }
       if (poly) {
-        const u = t - S[seg];
-        values[k] = cubicAt_(poly, u);
-        if (slopes) slopes[k] = cubicSlopeAt_(poly, u);
-        if (segs) segs[k] = seg;
+        const s0 = S[seg];
+        let j = k;
+        do {
+          const u = times[j] - s0;
+          values[j] = cubicAt_(poly, u);
+          if (slopes) slopes[j] = cubicSlopeAt_(poly, u);
+          if (segs) segs[j] = seg;
+          if (fns) fns[j] = -2 - seg;
+          j++;
+        } while (j < n - 1 && times[j] < lim);
+        k = j - 1;
         continue;
       }
       if (lf >= 0 && P!.kind[lf] === CUBIC) {
-        const o = 4 * lf, c = P!.c, u = t - P!.a[lf];
-        values[k] = cubicAt_(c, u, o);
-        if (slopes) slopes[k] = cubicSlopeAt_(c, u, o);
-        if (segs) segs[k] = -2;
+        const o = 4 * lf, c = P!.c, a = P!.a[lf];
+        if (lf + 1 < P!.first[seg + 1] && P!.b[lf] < lim) lim = P!.b[lf];
+        let j = k;
+        do {
+          const u = times[j] - a;
+          values[j] = cubicAt_(c, u, o);
+          if (slopes) slopes[j] = cubicSlopeAt_(c, u, o);
+          if (segs) segs[j] = -2;
+          if (fns) fns[j] = lf;
+          j++;
+        } while (j < n - 1 && times[j] < lim);
+        k = j - 1;
         continue;
       }
     }
+    if (fns) fns[k] = -1;
     entryAt(src, P, t, seg, seg >= 0 ? poly : null, lf, br, k === n - 1, ls, w, slopes !== null);
     values[k] = ENTRY.value;
     if (slopes) slopes[k] = ENTRY.slope;
@@ -262,6 +288,8 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
 /** Grow-only scratch buffers (one trial at a time). */
 let cap = 0;
 let T = new Float64Array(0), XV = new Float64Array(0), XM = new Float64Array(0), DV = new Float64Array(0), DM = new Float64Array(0);
+/** The cubic each filled entry was read from (./measure.ts EntryOrigins fn). */
+let FN = new Int32Array(0);
 /** STAMP[k] === stamp: entry k (its time in T, its numbers in XV, XM) is filled in the current trial (no clearing per trial). */
 let STAMP = new Uint32Array(0);
 let stamp = 0;
@@ -269,16 +297,22 @@ function ensure(n: number): void {
   if (n > cap) {
     cap = Math.max(n, 2 * cap, 64);
     T = new Float64Array(cap); XV = new Float64Array(cap); XM = new Float64Array(cap); DV = new Float64Array(cap); DM = new Float64Array(cap);
+    FN = new Int32Array(cap);
     STAMP = new Uint32Array(cap);
     stamp = 0;
     viewsH = []; viewsL = [];
   }
 }
-/** Views of the first n entries of T, DV (and DM for hermite), by n: reused by every trial of that count until the buffers grow. */
-let viewsH: (TrialView | undefined)[] = [], viewsL: (TrialView | undefined)[] = [];
-function viewOf(n: number, hermite: boolean): TrialView {
+/** A trial's table view with the origins of its entries (its proxy and shifts set per trial and window). */
+type OriginView = TrialView & { origins: EntryOrigins };
+/** Views of the first n entries of T, DV (and DM for hermite), FN, by n: reused by every trial of that count until the buffers grow. */
+let viewsH: (OriginView | undefined)[] = [], viewsL: (OriginView | undefined)[] = [];
+function viewOf(n: number, hermite: boolean): OriginView {
   const views = hermite ? viewsH : viewsL;
-  return views[n] ??= { kernel: hermite ? 'hermite' : 'linear', times: T.subarray(0, n), values: DV.subarray(0, n), slopes: hermite ? DM.subarray(0, n) : null };
+  return views[n] ??= {
+    kernel: hermite ? 'hermite' : 'linear', times: T.subarray(0, n), values: DV.subarray(0, n), slopes: hermite ? DM.subarray(0, n) : null,
+    origins: { fn: FN.subarray(0, n), proxy: null, shiftV: 0, shiftM: 0, rel: 0 },
+  };
 }
 /** A new trial: every entry unfilled. */
 function nextStamp(): void {
@@ -296,6 +330,26 @@ function decode(qv: Quantizer | null, qm: Quantizer | null, k0: number, k1: numb
     for (let k = k0; k < k1; k++) DM[k] = XM[k];
     if (qm) roundTrip(qm, DM, k0, k1);
   }
+}
+
+/**
+ * The most a unorm quantizer made for numbers in [lo, hi] moves one of them (M = 2ⁿ − 1): half a code
+ * step of its scale, which is at most (hi − lo)(1 + 2⁻²³) once rounded to float32, plus the float32
+ * rounding of its offset (at most 2⁻²⁴·|lo|: a number below the offset decodes to the offset), widened.
+ */
+export function unormShift(lo: number, hi: number, M: number): number {
+  return ((hi - lo) * (0.5 + 2 ** -22)) / M + 2 ** -23 * (Math.abs(lo) + Math.abs(hi));
+}
+
+/** Set the shifts of a view's origins (./measure.ts EntryOrigins) for decoding with qv, qm (null: raw, the numbers as read). */
+function setShifts(o: EntryOrigins, qv: Quantizer | null, qm: Quantizer | null): void {
+  o.shiftV = 0; o.shiftM = 0; o.rel = 0;
+  if (!qv) return;
+  if (qv.encoding === 'f32') { o.rel = 2 ** -23; return; }
+  const M = unormMax_(qv.encoding);
+  if (M === 0) { o.rel = Infinity; return; } // f16 is not decoded here; no bound given
+  o.shiftV = unormShift(qv.offset, qv.offset + qv.scale, M);
+  if (qm) o.shiftM = unormShift(qm.offset, qm.offset + qm.scale, M);
 }
 
 export interface TrialOutcome {
@@ -401,6 +455,8 @@ export class WindowTrials {
       br = lo < B.length && B[lo].time === t && B[lo].right >= 0 ? B[lo] : null;
     }
     const last = k === this.n - 1;
+    // the cubic the entry's value and slope come from (fillEntries' fns)
+    FN[k] = seg < 0 || br || last ? -1 : src.poly(seg) ? -2 - seg : lf >= 0 && P!.kind[lf] === CUBIC ? lf : -1;
     if (last && this.hermite) {
       // the last entry's slope is the same number in every trial unless it is a secant (./slopes.ts entrySlope)
       entryAt(src, P, t, seg, seg >= 0 ? src.poly(seg) : null, lf, br, true, this.ls, this.h, false);
@@ -464,6 +520,7 @@ export class WindowTrials {
     // the times and numbers of the entries [k0, k1) of its window (to the first entry ≥ wb), so only those
     // need to be filled and decoded
     const view = viewOf(n, this.hermite);
+    view.origins.proxy = this.P;
     if (ws > 0 && n > WINDOW_MIN_ENTRIES) {
       for (let i = 0; i < ws; i++) { K0[i] = Math.max(0, this.lb(WA[i]) - 1); K1[i] = Math.min(n, this.lb(WB[i]) + 1); R[i] = this.regionAt(WA[i]); }
       if (this.unorm) {
@@ -475,6 +532,7 @@ export class WindowTrials {
             const k0 = K0[i], k1 = K1[i];
             this.fillRange(k0, k1);
             decode(null, null, k0, k1, this.hermite);
+            setShifts(view.origins, null, null);
             const w = window(view, tol + d, WA[i], WB[i], R[i]);
             if (w > tol + d) return { e: w - d, fullAt: null, spot: i };
           }
@@ -487,21 +545,26 @@ export class WindowTrials {
         const k0 = K0[i], k1 = K1[i];
         this.fillRange(k0, k1);
         decode(qv, qm, k0, k1, this.hermite);
+        setShifts(view.origins, qv, qm);
         const w = window(view, tol, WA[i], WB[i], R[i]);
         if (w > tol) return { e: w, fullAt: null, spot: i };
       }
     }
     for (let k = 0; k < n; k++) T[k] = A + k * h;
     T[n - 1] = B;
-    // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry)
-    fillEntries(src, this.P, T.subarray(0, n), XV.subarray(0, n), this.hermite ? XM.subarray(0, n) : null, this.breaks);
+    // every entry: the forward walk of fillEntries (the same numbers as fill, without a search per entry),
+    // straight into the view's arrays and decoded there (the raw numbers are not needed again this trial)
+    const V = view.values, Ms = view.slopes;
+    fillEntries(src, this.P, view.times, V, Ms, this.breaks, undefined, view.origins.fn);
     if (!qv) {
       // the extremes of every entry directly (the same numbers extremes() finds)
-      const [vlo, vhi] = minMax_(XV.subarray(0, n));
+      const [vlo, vhi] = minMax_(V);
       qv = makeQuantizer_(e, vlo, vhi);
-      if (this.hermite) { const [mlo, mhi] = minMax_(XM.subarray(0, n)); qm = makeQuantizer_(e, mlo, mhi); }
+      if (Ms) { const [mlo, mhi] = minMax_(Ms); qm = makeQuantizer_(e, mlo, mhi); }
     }
-    decode(qv, qm, 0, n, this.hermite);
+    roundTrip(qv, V, 0, n);
+    if (Ms && qm) roundTrip(qm, Ms, 0, n);
+    setShifts(view.origins, qv, qm);
     // a small table is filled whole, but the windows still reject most counts before the whole measure
     if (n <= WINDOW_MIN_ENTRIES) {
       for (let i = 0; i < ws; i++) {
@@ -526,11 +589,11 @@ export class WindowTrials {
     const P = this.pieces!, M = unormMax_(this.profile.encoding as 'unorm8' | 'unorm16');
     this.special(0, n);
     const v0 = Math.min(EXT[0], P.all[0]), v1 = Math.max(EXT[1], P.all[1]);
-    let d = ((v1 - v0) * (0.5 + 1e-9)) / M + 1e-12 * (Math.abs(v0) + Math.abs(v1));
+    let d = unormShift(v0, v1, M);
     if (this.hermite) {
       this.special(1, n);
       const m0 = Math.min(EXT[0], P.all[2]), m1 = Math.max(EXT[1], P.all[3]);
-      d += (this.h / 4) * (((m1 - m0) * (0.5 + 1e-9)) / M + 1e-12 * (Math.abs(m0) + Math.abs(m1)));
+      d += (this.h / 4) * unormShift(m0, m1, M);
     }
     // the measure's own rounding on the perturbed numbers (far below this)
     d += 1e-9 * (1 + Math.abs(v0) + Math.abs(v1));

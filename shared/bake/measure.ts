@@ -102,7 +102,23 @@ export interface MeasureOptions {
   startRegion?: number;
 }
 
-type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'>;
+/**
+ * Where a table's entries were read from (optional on a table view): per entry, fn[k] = a stand-in leaf
+ * index ≥ 0 of `proxy` (the value and the slope of that leaf's cubic), −2 − i for source segment i's own
+ * cubic, or −1 (anything else: a break, the last entry, outside the domain, the source itself). The
+ * decoded numbers differ from the numbers read by at most shiftV + rel·|v̂| (values) and shiftM + rel·|m̂|
+ * (slopes), v̂, m̂ the decoded numbers. With it a region whose two entries come from one cubic g is
+ * bounded without being measured (see insideBound).
+ */
+export interface EntryOrigins {
+  fn: Int32Array;
+  proxy: Proxy | null;
+  shiftV: number;
+  shiftM: number;
+  rel: number;
+}
+
+type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> & { origins?: EntryOrigins | null };
 
 const SRC = new Float64Array(4);
 const TAB = new Float64Array(4);
@@ -120,6 +136,36 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
   if (tab.kernel === 'hermite' && tab.slopes) hermiteCoeffs_(V[k], tab.slopes[k], V[k + 1], tab.slopes[k + 1], H, TAB);
   else linearCoeffs_(V[k], V[k + 1], H, TAB);
   return shiftCubic_(TAB, x0 - T[k]);
+}
+
+/**
+ * An upper bound of the figure max |g − p| the measure computes on any piece of region k when both its
+ * entries were read from one cubic g (coefficients c[o..o+3] about the start of g's interval of length Lg;
+ * EntryOrigins). A cubic is its own Hermite interpolant, so for the hermite kernel p − g is the Hermite
+ * interpolant of the entries' differences from g: |p − g| ≤ δv + H·δm/4 (the value weights are ≥ 0 and sum
+ * to 1, |h10| + |h11| = s(1 − s)·H ≤ H/4; as ./bound.ts). For the linear kernel |p − g| ≤ M2·H²/8 + δv,
+ * M2 = max |g''| over g's interval (g'' is linear: the larger end). δv, δm: the most the decoded numbers
+ * differ from g's values and slopes (EntryOrigins shifts). Added: 1e-10·(Q + H·Q1 + |v̂| + H·|m̂|), Q and
+ * Q1 the term sums of g and g' over its interval, far above every rounding on the way (reading the entries
+ * from g, the table's coefficients, the shift to the piece, the difference and its maximum, each a few
+ * ulps of these sums).
+ */
+function insideBound(c: Float64Array, o: number, Lg: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, O: EntryOrigins): number {
+  const H = T[k + 1] - T[k];
+  const c0 = Math.abs(c[o]), c1 = Math.abs(c[o + 1]), c2 = Math.abs(c[o + 2]), c3 = Math.abs(c[o + 3]);
+  const Q = c0 + Lg * (c1 + Lg * (c2 + Lg * c3)), Q1 = c1 + Lg * (2 * c2 + 3 * Lg * c3);
+  const v0 = Math.abs(V[k]), v1 = Math.abs(V[k + 1]), vm = v0 > v1 ? v0 : v1;
+  const dv = O.shiftV + O.rel * vm;
+  let mm = 0, fit: number;
+  if (Ms) {
+    const m0 = Math.abs(Ms[k]), m1 = Math.abs(Ms[k + 1]);
+    mm = m0 > m1 ? m0 : m1;
+    fit = (H * (O.shiftM + O.rel * mm)) / 4;
+  } else {
+    const g0 = Math.abs(2 * c[o + 2]), g1 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * Lg);
+    fit = ((g0 > g1 ? g0 : g1) * H * H) / 8;
+  }
+  return dv + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300;
 }
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
@@ -378,8 +424,10 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const tolAbs = opts.tolerance;
   const slackAbs = proxyDistance(opts.tolerance, opts.slackFraction);
   const maxSamples = opts.maxSamples ?? 256;
-  const K = tab.times;
+  const K = tab.times, V = tab.values;
+  const Ms = tab.kernel === 'hermite' && tab.slopes ? tab.slopes : null;
   const nk = K.length;
+  const O = tab.origins ?? null, F = O ? O.fn : null;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
   dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
   // first table region at A
@@ -414,6 +462,32 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
         if (c < cuts.length && cuts[c] < x1) x1 = cuts[c];
       }
       if (x1 > x0 && nextUpF32_(x0) < x1) {
+        // a region inside one cubic the entries were read from: skipped when its bound cannot change the
+        // figures (the same rule as exactPiece and proxyPiece apply to a piece's computed bound)
+        if (F && k >= 0 && k + 1 < nk && F[k] !== -1 && F[k] === F[k + 1]) {
+          const f = F[k];
+          if (exact && f === -2 - i) {
+            const ub = insideBound(poly, 0, S[i + 1] - S[i], K, V, Ms, k, O!);
+            if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) {
+              if (x1 >= b) break;
+              x0 = x1;
+              while (k + 1 < nk && K[k + 1] <= x0) k++;
+              continue;
+            }
+          } else if (!exact && f >= 0) {
+            if (!proxy) proxy = proxyFor_(src, slackAbs);
+            if (O!.proxy === proxy && f >= proxy.first[i] && f < proxy.first[i + 1]) {
+              const ub = insideBound(proxy.c, 4 * f, proxy.b[f] - proxy.a[f], K, V, Ms, k, O!), Ek = proxy.err[f];
+              if (estimate ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert)) : ub <= bestErr && ub + Ek <= certified) {
+                sampledUsed = true;
+                if (x1 >= b) break;
+                x0 = x1;
+                while (k + 1 < nk && K[k + 1] <= x0) k++;
+                continue;
+              }
+            }
+          }
+        }
         tableCoeffs(tab, k, x0);
         if (KV && k >= 0 && k + 1 < nk) {
           hT0 = K[k]; hS0 = KS![k]; hV0 = KV[k];
