@@ -139,33 +139,40 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
 }
 
 /**
- * An upper bound of the figure max |g − p| the measure computes on any piece of region k when both its
- * entries were read from one cubic g (coefficients c[o..o+3] about the start of g's interval of length Lg;
- * EntryOrigins). A cubic is its own Hermite interpolant, so for the hermite kernel p − g is the Hermite
- * interpolant of the entries' differences from g: |p − g| ≤ δv + H·δm/4 (the value weights are ≥ 0 and sum
- * to 1, |h10| + |h11| = s(1 − s)·H ≤ H/4; as ./bound.ts). For the linear kernel |p − g| ≤ M2·H²/8 + δv,
+ * Whether the regions k … k1 − 1, whose entries k … k1 were all read from one cubic g (coefficients
+ * c[o..o+3] about the start of g's interval of length Lg; EntryOrigins), can be skipped: whether a bound
+ * of the figure max |g − p| the measure would compute on any piece of them cannot change the figures
+ * found so far, by the rule exactPiece and proxyPiece apply to a measured piece (leaf: a stand-in leaf
+ * with distance Ek; `estimate` as the measurement's).
+ *
+ * The bound: a cubic is its own Hermite interpolant, so for the hermite kernel p − g is the Hermite
+ * interpolant of the entries' differences from g: |p − g| ≤ δv + H·δm/4 (the value weights are ≥ 0 and
+ * sum to 1, |h10| + |h11| = s(1 − s)·H ≤ H/4; as ./bound.ts). For the linear kernel |p − g| ≤ M2·H²/8 + δv,
  * M2 = max |g''| over g's interval (g'' is linear: the larger end). δv, δm: the most the decoded numbers
  * differ from g's values and slopes (EntryOrigins shifts). Added: 1e-10·(Q + H·Q1 + |v̂| + H·|m̂|), Q and
  * Q1 the term sums of g and g' over its interval, far above every rounding on the way (reading the entries
  * from g, the table's coefficients, the shift to the piece, the difference and its maximum, each a few
- * ulps of these sums).
+ * ulps of these sums). H, |v̂| and |m̂| are the largest over the regions.
  */
-function insideBound(c: Float64Array, o: number, Lg: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, O: EntryOrigins): number {
-  const H = T[k + 1] - T[k];
+function insideSkips(c: Float64Array, o: number, Lg: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, leaf: boolean, Ek: number, estimate: boolean): boolean {
+  let H = 0, vm = 0, mm = 0;
+  for (let j = k; j < k1; j++) { const w = T[j + 1] - T[j]; if (w > H) H = w; }
+  for (let j = k; j <= k1; j++) { const v = Math.abs(V[j]); if (v > vm) vm = v; }
   const c0 = Math.abs(c[o]), c1 = Math.abs(c[o + 1]), c2 = Math.abs(c[o + 2]), c3 = Math.abs(c[o + 3]);
   const Q = c0 + Lg * (c1 + Lg * (c2 + Lg * c3)), Q1 = c1 + Lg * (2 * c2 + 3 * Lg * c3);
-  const v0 = Math.abs(V[k]), v1 = Math.abs(V[k + 1]), vm = v0 > v1 ? v0 : v1;
-  const dv = O.shiftV + O.rel * vm;
-  let mm = 0, fit: number;
+  let fit: number;
   if (Ms) {
-    const m0 = Math.abs(Ms[k]), m1 = Math.abs(Ms[k + 1]);
-    mm = m0 > m1 ? m0 : m1;
+    for (let j = k; j <= k1; j++) { const m = Math.abs(Ms[j]); if (m > mm) mm = m; }
     fit = (H * (O.shiftM + O.rel * mm)) / 4;
   } else {
     const g0 = Math.abs(2 * c[o + 2]), g1 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * Lg);
     fit = ((g0 > g1 ? g0 : g1) * H * H) / 8;
   }
-  return dv + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300;
+  const ub = O.shiftV + O.rel * vm + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300;
+  if (!leaf) return ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert));
+  return estimate
+    ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert))
+    : ub <= bestErr && ub + Ek <= certified;
 }
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
@@ -428,6 +435,8 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const Ms = tab.kernel === 'hermite' && tab.slopes ? tab.slopes : null;
   const nk = K.length;
   const O = tab.origins ?? null, F = O ? O.fn : null;
+  // regions before this one were in a run of regions inside one cubic whose bound was checked
+  let runChecked = -1;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
   dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
   // first table region at A
@@ -463,28 +472,34 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
       }
       if (x1 > x0 && nextUpF32_(x0) < x1) {
         // a region inside one cubic the entries were read from: skipped when its bound cannot change the
-        // figures (the same rule as exactPiece and proxyPiece apply to a piece's computed bound)
+        // figures, and with it the rest of the run of regions inside that cubic when their bound cannot
+        // (insideSkips; the run is checked once: where it fails, its regions are checked one by one)
         if (F && k >= 0 && k + 1 < nk && F[k] !== -1 && F[k] === F[k + 1]) {
           const f = F[k];
-          if (exact && f === -2 - i) {
-            const ub = insideBound(poly, 0, S[i + 1] - S[i], K, V, Ms, k, O!);
-            if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) {
+          let g: Float64Array | null = null, go = 0, Lg = 0, Ek = 0;
+          if (exact && f === -2 - i) { g = poly; Lg = S[i + 1] - S[i]; }
+          else if (!exact && f >= 0) {
+            if (!proxy) proxy = proxyFor_(src, slackAbs);
+            if (O!.proxy === proxy && f >= proxy.first[i] && f < proxy.first[i + 1]) { g = proxy.c; go = 4 * f; Lg = proxy.b[f] - proxy.a[f]; Ek = proxy.err[f]; }
+          }
+          if (g) {
+            // end: the first region not skipped (0: none skipped)
+            let end = 0;
+            if (k >= runChecked) {
+              let last = k + 1;
+              // (no further than the first entry at or after B: the measure reads nothing past it)
+              while (last + 1 < nk && K[last] < B && F[last + 1] === f) last++;
+              runChecked = last;
+              if (last > k + 1 && insideSkips(g, go, Lg, K, V, Ms, k, last, O!, !exact, Ek, estimate)) end = last;
+            }
+            if (end === 0 && insideSkips(g, go, Lg, K, V, Ms, k, k + 1, O!, !exact, Ek, estimate)) end = k + 1;
+            if (end > 0) {
+              if (!exact) sampledUsed = true;
+              x1 = K[end] < b ? K[end] : b;
               if (x1 >= b) break;
               x0 = x1;
               while (k + 1 < nk && K[k + 1] <= x0) k++;
               continue;
-            }
-          } else if (!exact && f >= 0) {
-            if (!proxy) proxy = proxyFor_(src, slackAbs);
-            if (O!.proxy === proxy && f >= proxy.first[i] && f < proxy.first[i + 1]) {
-              const ub = insideBound(proxy.c, 4 * f, proxy.b[f] - proxy.a[f], K, V, Ms, k, O!), Ek = proxy.err[f];
-              if (estimate ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert)) : ub <= bestErr && ub + Ek <= certified) {
-                sampledUsed = true;
-                if (x1 >= b) break;
-                x0 = x1;
-                while (k + 1 < nk && K[k + 1] <= x0) k++;
-                continue;
-              }
             }
           }
         }

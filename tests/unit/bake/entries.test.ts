@@ -62,11 +62,18 @@ describe('window trials fill the numbers of the whole table', () => {
           const lb = (x: number) => { let k = 0; while (k < n && want.times[k] < x) k++; return k; };
           return [Math.max(0, lb(wa) - 1), Math.min(n, lb(wb) + 1)];
         };
-        // the view with every entry outside [k0, k1) made NaN, its time too (a measure that read one would not give the same figure)
+        // the view with every entry outside [k0, k1) made NaN (its time −1e300, and its origin that of the
+        // window's nearest entry, so a run of regions inside one cubic would reach into them): a measure that
+        // read one would not give the same figure
         const poisoned = (v: TrialView, k0: number, k1: number): TrialView => {
           const times = Float64Array.from(v.times), values = Float64Array.from(v.values), slopes = v.slopes ? Float64Array.from(v.slopes) : null;
-          for (let k = 0; k < n; k++) if (k < k0 || k >= k1) { times[k] = Number.NaN; values[k] = Number.NaN; if (slopes) slopes[k] = Number.NaN; }
-          return { kernel: v.kernel, times, values, slopes };
+          const origins = v.origins ? { ...v.origins, fn: Int32Array.from(v.origins.fn) } : null;
+          for (let k = 0; k < n; k++) {
+            if (k >= k0 && k < k1) continue;
+            times[k] = -1e300; values[k] = Number.NaN; if (slopes) slopes[k] = Number.NaN;
+            if (origins) origins.fn[k] = origins.fn[k < k0 ? k0 : k1 - 1];
+          }
+          return { kernel: v.kernel, times, values, slopes, origins };
         };
         const estOpts = { tolerance: tol, estimate: true, includeEnd: false };
         const raw: number[] = [];
@@ -121,6 +128,14 @@ describe('window trials fill the numbers of the whole table', () => {
             const proof = lastCertified();
             measureError(src, bare, opts);
             expect(proof).toEqual(lastCertified());
+          }
+          // a range of the table measured from its start region with every entry it should not read poisoned
+          for (const [wa, wb] of windows) {
+            let region = -1;
+            while (region + 1 < n && v.times[region + 1] <= wa) region++;
+            const [k0, k1] = reads(wa, wb);
+            const o = { ...estOpts, startRegion: region };
+            expect(measureError(src, poisoned(v, k0, k1), o, wa, wb)).toEqual(measureError(src, bare, estOpts, wa, wb));
           }
           originsChecked++;
           return { e: 0, at: 0 };
