@@ -120,9 +120,7 @@ export interface EntryOrigins {
 
 type TableView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> & { origins?: EntryOrigins | null };
 
-const SRC = new Float64Array(4);
 const TAB = new Float64Array(4);
-const TAB2 = new Float64Array(4);
 const DIFF = new Float64Array(4);
 
 /** Table coefficients of region k (−1 before, N−1 after) shifted to origin x0, into TAB. */
@@ -212,24 +210,34 @@ export function recorded(): { maxError: number; certified: number } { return { m
 export function resetRecord(): void { bestErr = 0; bestAt = 0; certified = 0; }
 
 /**
- * Exact piece: the source cubic p of its segment (about the segment's start s0) minus the table cubic
- * (TAB already at origin x0). The source cubic is shifted to x0 as shiftCubic does, in locals.
+ * DIFF = g(· + s) − p(· + r): the cubic g whose coefficients start at c[o] re-expanded about s, minus the
+ * table cubic TAB re-expanded about r, each as shiftCubic does it (./poly.ts), in locals.
  */
-function exactPiece(p: Float64Array, s0: number, x0: number, x1: number): void {
-  const s = x0 - s0;
-  let c0 = p[0], c1 = p[1], c2 = p[2];
-  const c3 = p[3];
+function diffInto(c: Float64Array, o: number, s: number, r: number): void {
+  let q0 = c[o], q1 = c[o + 1], q2 = c[o + 2];
+  const q3 = c[o + 3];
   if (s !== 0) {
-    c0 = c0 + s * (c1 + s * (c2 + s * c3));
-    c1 = c1 + s * (2 * c2 + 3 * s * c3);
-    c2 = c2 + 3 * s * c3;
+    q0 = q0 + s * (q1 + s * (q2 + s * q3));
+    q1 = q1 + s * (2 * q2 + 3 * s * q3);
+    q2 = q2 + 3 * s * q3;
   }
-  const d0 = c0 - TAB[0], d1 = c1 - TAB[1], d2 = c2 - TAB[2], d3 = c3 - TAB[3];
+  let p0 = TAB[0], p1 = TAB[1], p2 = TAB[2];
+  const p3 = TAB[3];
+  if (r !== 0) {
+    p0 = p0 + r * (p1 + r * (p2 + r * p3));
+    p1 = p1 + r * (2 * p2 + 3 * r * p3);
+    p2 = p2 + 3 * r * p3;
+  }
+  DIFF[0] = q0 - p0; DIFF[1] = q1 - p1; DIFF[2] = q2 - p2; DIFF[3] = q3 - p3;
+}
+
+/** Exact piece: the source cubic p of its segment (about the segment's start s0) minus the table cubic (TAB already at origin x0). */
+function exactPiece(p: Float64Array, s0: number, x0: number, x1: number): void {
+  diffInto(p, 0, x0 - s0, 0);
   const L = x1 - x0;
   // a piece whose error cannot reach the figures already found changes nothing (see cubicBound)
-  const ub = cubicBound(d0, d1, d2, d3, L);
+  const ub = cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L);
   if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) return;
-  DIFF[0] = d0; DIFF[1] = d1; DIFF[2] = d2; DIFF[3] = d3;
   const e = maxAbsCubic_(DIFF, L);
   record(e, x0 + MAX_SLOT[1], e);
   if (dual) recordCert(e, x0 + MAX_SLOT[1], e);
@@ -356,28 +364,12 @@ function proxyPiece(
     const y0 = A[k] > x0 ? A[k] : x0, y1 = Bq[k] < x1 ? Bq[k] : x1;
     if (!(y1 > y0)) continue;
     if (P.kind[k] === SAMPLED) { sampledPiece(src, i, y0, y1, x0, slackAbs, maxSamples, estimate, 0); continue; }
-    // the leaf's cubic and the table's, both shifted to y0 (as shiftCubic does), in locals
-    const o = 4 * k, s = y0 - A[k], r = y0 - x0;
-    let q0 = C[o], q1 = C[o + 1], q2 = C[o + 2];
-    const q3 = C[o + 3];
-    if (s !== 0) {
-      q0 = q0 + s * (q1 + s * (q2 + s * q3));
-      q1 = q1 + s * (2 * q2 + 3 * s * q3);
-      q2 = q2 + 3 * s * q3;
-    }
-    let p0 = TAB[0], p1 = TAB[1], p2 = TAB[2];
-    const p3 = TAB[3];
-    if (r !== 0) {
-      p0 = p0 + r * (p1 + r * (p2 + r * p3));
-      p1 = p1 + r * (2 * p2 + 3 * r * p3);
-      p2 = p2 + 3 * r * p3;
-    }
-    const d0 = q0 - p0, d1 = q1 - p1, d2 = q2 - p2, d3 = q3 - p3;
+    // the leaf's cubic and the table's, both shifted to y0
+    diffInto(C, 4 * k, y0 - A[k], y0 - x0);
     const L = y1 - y0, Ek = E[k];
     // skip a leaf whose figures cannot exceed those found so far (cubicBound); the estimate records e − ε, the proof e + ε
-    const ub = cubicBound(d0, d1, d2, d3, L);
+    const ub = cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L);
     if (estimate ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert)) : ub <= bestErr && ub + Ek <= certified) continue;
-    DIFF[0] = d0; DIFF[1] = d1; DIFF[2] = d2; DIFF[3] = d3;
     const e = maxAbsCubic_(DIFF, L);
     const at = y0 + MAX_SLOT[1];
     if (estimate) {
