@@ -85,13 +85,21 @@ export function entryAt(src: BakeSource, P: Proxy | null, t: number, seg: number
  * and breaks are found by walking forward with t.
  */
 export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Array, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array, fns?: Int32Array): void {
-  const S = src.times, ns = S.length - 1, n = times.length;
+  const n = times.length;
+  fillRun(src, P, times, n, 0, n, (times[n - 1] - times[0]) / (n - 1), values, slopes, breaks, segs, fns);
+}
+
+/**
+ * fillEntries for the entries [k0, k1) of a table of n entries (times[k0..k1) written; w the grid step),
+ * into the same places of values, slopes, segs and fns: the same numbers as filling the whole table.
+ */
+export function fillRun(src: BakeSource, P: Proxy | null, times: Float64Array, n: number, k0: number, k1: number, w: number, values: Float64Array, slopes: Float64Array | null, breaks: readonly Break[], segs?: Int32Array, fns?: Int32Array): void {
+  const S = src.times, ns = S.length - 1;
   const S0 = S[0], SN = S[ns];
-  const w = (times[n - 1] - times[0]) / (n - 1);
   const ls = lastSegment(src);
   let i = 0, b = 0, leaf = 0;
   let polyOf = -1, poly: Float64Array | null = null;
-  for (let k = 0; k < n; k++) {
+  for (let k = k0; k < k1; k++) {
     const t = times[k];
     let seg = -1, lf = -1;
     if (t >= S0 && t < SN) {
@@ -129,7 +137,7 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
           if (segs) segs[j] = seg;
           if (fns) fns[j] = -2 - seg;
           j++;
-        } while (j < n - 1 && times[j] < lim);
+        } while (j < k1 && j < n - 1 && times[j] < lim);
         k = j - 1;
         continue;
       }
@@ -144,7 +152,7 @@ export function fillEntries(src: BakeSource, P: Proxy | null, times: Float64Arra
           if (segs) segs[j] = -2;
           if (fns) fns[j] = lf;
           j++;
-        } while (j < n - 1 && times[j] < lim);
+        } while (j < k1 && j < n - 1 && times[j] < lim);
         k = j - 1;
         continue;
       }
@@ -576,9 +584,15 @@ export class WindowTrials {
     return { e: m.e, fullAt: m.at, spot: -1 };
   }
 
-  /** Fill entries [k0, k1) not yet filled in this trial. */
+  /** Fill the entries of [k0, k1) not yet filled in this trial. */
   private fillRange(k0: number, k1: number): void {
-    for (let k = k0; k < k1; k++) if (STAMP[k] !== stamp) this.fill(k);
+    // the filled ends are left as they are; the rest is filled as one run with fillEntries' forward walk
+    // (an entry already filled inside it gets the same numbers again)
+    while (k0 < k1 && STAMP[k0] === stamp) k0++;
+    while (k1 > k0 && STAMP[k1 - 1] === stamp) k1--;
+    if (k0 >= k1) return;
+    for (let k = k0; k < k1; k++) { T[k] = this.tAt(k); STAMP[k] = stamp; }
+    fillRun(this.src, this.P, T, this.n, k0, k1, this.h, XV, this.hermite ? XM : null, this.breaks, undefined, FN);
   }
 
   /**
