@@ -282,15 +282,31 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
     if (!(M[2 * q] >= all[2])) all[2] = M[2 * q];
     if (!(M[2 * q + 1] <= all[3])) all[3] = M[2 * q + 1];
   }
-  const idx = (): Int32Array => { const r = new Int32Array(count); for (let q = 0; q < count; q++) r[q] = q; return r; };
   return {
     count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
     vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf), all,
-    vLo: idx().sort((x, y) => V[2 * x] - V[2 * y] || x - y),
-    vHi: idx().sort((x, y) => V[2 * y + 1] - V[2 * x + 1] || x - y),
-    mLo: idx().sort((x, y) => M[2 * x] - M[2 * y] || x - y),
-    mHi: idx().sort((x, y) => M[2 * y + 1] - M[2 * x + 1] || x - y),
+    vLo: pieceOrder(V, 0, count, false), vHi: pieceOrder(V, 1, count, true),
+    mLo: pieceOrder(M, 0, count, false), mHi: pieceOrder(M, 1, count, true),
   };
+}
+
+/**
+ * The pieces 0 … count − 1 ordered by R[2q + o], increasing (or decreasing with `down`), equal keys by
+ * index (the ranges hold no NaN). An insertion sort for the usual few dozen pieces (no comparator
+ * calls), Array.prototype.sort for many.
+ */
+function pieceOrder(R: Float64Array, o: 0 | 1, count: number, down: boolean): Int32Array {
+  const r = new Int32Array(count);
+  for (let q = 0; q < count; q++) r[q] = q;
+  if (count > 128) return r.sort(down ? (x, y) => R[2 * y + o] - R[2 * x + o] || x - y : (x, y) => R[2 * x + o] - R[2 * y + o] || x - y);
+  for (let q = 1; q < count; q++) {
+    const key = R[2 * q + o];
+    let j = q - 1;
+    // q goes after every earlier piece whose key is not strictly after its own (so equal keys stay by index)
+    while (j >= 0 && (down ? R[2 * r[j] + o] < key : R[2 * r[j] + o] > key)) { r[j + 1] = r[j]; j--; }
+    r[j + 1] = q;
+  }
+  return r;
 }
 
 /** Grow-only scratch buffers (one trial at a time). */
