@@ -146,13 +146,14 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
  * The bound: a cubic is its own Hermite interpolant, so for the hermite kernel p − g is the Hermite
  * interpolant of the entries' differences from g: |p − g| ≤ δv + H·δm/4 (the value weights are ≥ 0 and
  * sum to 1, |h10| + |h11| = s(1 − s)·H ≤ H/4; as ./bound.ts). For the linear kernel |p − g| ≤ M2·H²/8 + δv,
- * M2 = max |g''| over g's interval (g'' is linear: the larger end). δv, δm: the most the decoded numbers
+ * M2 = max |g''| over the regions (g'' is linear: the larger of its sizes at times[k] and times[k1], g's
+ * interval starting at org). δv, δm: the most the decoded numbers
  * differ from g's values and slopes (EntryOrigins shifts). Added: 1e-10·(Q + H·Q1 + |v̂| + H·|m̂|), Q and
  * Q1 the term sums of g and g' over its interval, far above every rounding on the way (reading the entries
  * from g, the table's coefficients, the shift to the piece, the difference and its maximum, each a few
  * ulps of these sums). H, |v̂| and |m̂| are the largest over the regions.
  */
-function insideSkips(c: Float64Array, o: number, Lg: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, leaf: boolean, Ek: number, estimate: boolean): boolean {
+function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, leaf: boolean, Ek: number, estimate: boolean): boolean {
   let H = 0, vm = 0, mm = 0;
   for (let j = k; j < k1; j++) { const w = T[j + 1] - T[j]; if (w > H) H = w; }
   for (let j = k; j <= k1; j++) { const v = Math.abs(V[j]); if (v > vm) vm = v; }
@@ -163,7 +164,8 @@ function insideSkips(c: Float64Array, o: number, Lg: number, T: Float64Array, V:
     for (let j = k; j <= k1; j++) { const m = Math.abs(Ms[j]); if (m > mm) mm = m; }
     fit = (H * (O.shiftM + O.rel * mm)) / 4;
   } else {
-    const g0 = Math.abs(2 * c[o + 2]), g1 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * Lg);
+    // g'' is linear: its largest size over the regions' span is at one of the span's ends
+    const g0 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * (T[k] - org)), g1 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * (T[k1] - org));
     fit = ((g0 > g1 ? g0 : g1) * H * H) / 8;
   }
   const ub = O.shiftV + O.rel * vm + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300;
@@ -468,11 +470,11 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
         // (insideSkips; the run is checked once: where it fails, its regions are checked one by one)
         if (F && k >= 0 && k + 1 < nk && F[k] !== -1 && F[k] === F[k + 1]) {
           const f = F[k];
-          let g: Float64Array | null = null, go = 0, Lg = 0, Ek = 0;
-          if (exact && f === -2 - i) { g = poly; Lg = S[i + 1] - S[i]; }
+          let g: Float64Array | null = null, go = 0, Lg = 0, org = 0, Ek = 0;
+          if (exact && f === -2 - i) { g = poly; Lg = S[i + 1] - S[i]; org = S[i]; }
           else if (!exact && f >= 0) {
             if (!proxy) proxy = proxyFor_(src, slackAbs);
-            if (O!.proxy === proxy && f >= proxy.first[i] && f < proxy.first[i + 1]) { g = proxy.c; go = 4 * f; Lg = proxy.b[f] - proxy.a[f]; Ek = proxy.err[f]; }
+            if (O!.proxy === proxy && f >= proxy.first[i] && f < proxy.first[i + 1]) { g = proxy.c; go = 4 * f; Lg = proxy.b[f] - proxy.a[f]; org = proxy.a[f]; Ek = proxy.err[f]; }
           }
           if (g) {
             // end: the first region not skipped (0: none skipped)
@@ -482,9 +484,9 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
               // (no further than the first entry at or after B: the measure reads nothing past it)
               while (last + 1 < nk && K[last] < B && F[last + 1] === f) last++;
               runChecked = last;
-              if (last > k + 1 && insideSkips(g, go, Lg, K, V, Ms, k, last, O!, !exact, Ek, estimate)) end = last;
+              if (last > k + 1 && insideSkips(g, go, Lg, org, K, V, Ms, k, last, O!, !exact, Ek, estimate)) end = last;
             }
-            if (end === 0 && insideSkips(g, go, Lg, K, V, Ms, k, k + 1, O!, !exact, Ek, estimate)) end = k + 1;
+            if (end === 0 && insideSkips(g, go, Lg, org, K, V, Ms, k, k + 1, O!, !exact, Ek, estimate)) end = k + 1;
             if (end > 0) {
               if (!exact) sampledUsed = true;
               x1 = K[end] < b ? K[end] : b;
