@@ -108,7 +108,7 @@ export interface MeasureOptions {
  * cubic, or −1 (anything else: a break, the last entry, outside the domain, the source itself). The
  * decoded numbers differ from the numbers read by at most shiftV + rel·|v̂| (values) and shiftM + rel·|m̂|
  * (slopes), v̂, m̂ the decoded numbers. With it a region whose two entries come from one cubic g is
- * bounded without being measured (see insideBound).
+ * bounded without being measured (see insideSkips).
  */
 export interface EntryOrigins {
   fn: Int32Array;
@@ -140,8 +140,8 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
  * Whether the regions k … k1 − 1, whose entries k … k1 were all read from one cubic g (coefficients
  * c[o..o+3] about the start of g's interval of length Lg; EntryOrigins), can be skipped: whether a bound
  * of the figure max |g − p| the measure would compute on any piece of them cannot change the figures
- * found so far, by the rule exactPiece and proxyPiece apply to a measured piece (leaf: a stand-in leaf
- * with distance Ek; `estimate` as the measurement's).
+ * found so far, by the rule exactPiece and proxyPiece apply to a measured piece (cannotChange; Ek the
+ * stand-in leaf's distance, 0 for the segment's own cubic; `estimate` as the measurement's).
  *
  * The bound: a cubic is its own Hermite interpolant, so for the hermite kernel p − g is the Hermite
  * interpolant of the entries' differences from g: |p − g| ≤ δv + H·δm/4 (the value weights are ≥ 0 and
@@ -153,7 +153,7 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
  * from g, the table's coefficients, the shift to the piece, the difference and its maximum, each a few
  * ulps of these sums). H, |v̂| and |m̂| are the largest over the regions.
  */
-function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, leaf: boolean, Ek: number, estimate: boolean): boolean {
+function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, Ek: number, estimate: boolean): boolean {
   let H = 0, vm = 0, mm = 0;
   for (let j = k; j < k1; j++) { const w = T[j + 1] - T[j]; if (w > H) H = w; }
   for (let j = k; j <= k1; j++) { const v = Math.abs(V[j]); if (v > vm) vm = v; }
@@ -168,8 +168,16 @@ function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Flo
     const g0 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * (T[k] - org)), g1 = Math.abs(2 * c[o + 2] + 6 * c[o + 3] * (T[k1] - org));
     fit = ((g0 > g1 ? g0 : g1) * H * H) / 8;
   }
-  const ub = O.shiftV + O.rel * vm + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300;
-  if (!leaf) return ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert));
+  return cannotChange(O.shiftV + O.rel * vm + fit + 1e-10 * (Q + H * Q1 + vm + H * mm) + 1e-300, Ek, estimate);
+}
+
+/**
+ * Whether a piece whose computed maximum e = max |g − p| is at most ub cannot change the figures found so
+ * far (Ek: the stand-in leaf's distance, 0 for an exact piece): the estimate records e − Ek (the dual pass
+ * also e + Ek and, where e leads, the true error, at most e + Ek), the certifying measure e + Ek; record()
+ * keeps the first of equal figures, so such a piece is skipped with every result the same.
+ */
+function cannotChange(ub: number, Ek: number, estimate: boolean): boolean {
   return estimate
     ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert))
     : ub <= bestErr && ub + Ek <= certified;
@@ -238,8 +246,8 @@ function exactPiece(p: Float64Array, s0: number, x0: number, x1: number): void {
   diffInto(p, 0, x0 - s0, 0);
   const L = x1 - x0;
   // a piece whose error cannot reach the figures already found changes nothing (see cubicBound)
-  const ub = cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L);
-  if (ub <= bestErr && ub <= certified && (!dual || (ub <= cBest && ub <= cCert))) return;
+  // (with Ek = 0 both of cannotChange's rules are the same: the figures of an exact piece are e itself)
+  if (cannotChange(cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L), 0, true)) return;
   const e = maxAbsCubic_(DIFF, L);
   record(e, x0 + MAX_SLOT[1], e);
   if (dual) recordCert(e, x0 + MAX_SLOT[1], e);
@@ -370,8 +378,7 @@ function proxyPiece(
     diffInto(C, 4 * k, y0 - A[k], y0 - x0);
     const L = y1 - y0, Ek = E[k];
     // skip a leaf whose figures cannot exceed those found so far (cubicBound); the estimate records e − ε, the proof e + ε
-    const ub = cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L);
-    if (estimate ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert)) : ub <= bestErr && ub + Ek <= certified) continue;
+    if (cannotChange(cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L), Ek, estimate)) continue;
     const e = maxAbsCubic_(DIFF, L);
     const at = y0 + MAX_SLOT[1];
     if (estimate) {
@@ -484,9 +491,9 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
               // (no further than the first entry at or after B: the measure reads nothing past it)
               while (last + 1 < nk && K[last] < B && F[last + 1] === f) last++;
               runChecked = last;
-              if (last > k + 1 && insideSkips(g, go, Lg, org, K, V, Ms, k, last, O!, !exact, Ek, estimate)) end = last;
+              if (last > k + 1 && insideSkips(g, go, Lg, org, K, V, Ms, k, last, O!, Ek, estimate)) end = last;
             }
-            if (end === 0 && insideSkips(g, go, Lg, org, K, V, Ms, k, k + 1, O!, !exact, Ek, estimate)) end = k + 1;
+            if (end === 0 && insideSkips(g, go, Lg, org, K, V, Ms, k, k + 1, O!, Ek, estimate)) end = k + 1;
             if (end > 0) {
               if (!exact) sampledUsed = true;
               x1 = K[end] < b ? K[end] : b;
