@@ -127,30 +127,21 @@ export function fillRun(src: BakeSource, P: Proxy | null, times: Float64Array, n
         while (nb < breaks.length && breaks[nb].time <= t) nb++;
         if (nb < breaks.length && breaks[nb].time < lim) lim = breaks[nb].time;
       }
-      if (poly) {
-        const s0 = S[seg];
-        let j = k;
-        do {
-          const u = times[j] - s0;
-          values[j] = cubicAt_(poly, u);
-          if (slopes) slopes[j] = cubicSlopeAt_(poly, u);
-          if (segs) segs[j] = seg;
-          if (fns) fns[j] = -2 - seg;
-          j++;
-        } while (j < k1 && j < n - 1 && times[j] < lim);
-        k = j - 1;
-        continue;
-      }
-      if (lf >= 0 && P!.kind[lf] === CUBIC) {
-        const o = 4 * lf, c = P!.c, a = P!.a[lf];
+      // the cubic (coefficients from c[o], about org) and what segs and fns record for its entries
+      let c: Float64Array | null = null, o = 0, org = 0, sv = -2, fv = -1;
+      if (poly) { c = poly; org = S[seg]; sv = seg; fv = -2 - seg; }
+      else if (lf >= 0 && P!.kind[lf] === CUBIC) {
+        c = P!.c; o = 4 * lf; org = P!.a[lf]; fv = lf;
         if (lf + 1 < P!.first[seg + 1] && P!.b[lf] < lim) lim = P!.b[lf];
+      }
+      if (c) {
         let j = k;
         do {
-          const u = times[j] - a;
+          const u = times[j] - org;
           values[j] = cubicAt_(c, u, o);
           if (slopes) slopes[j] = cubicSlopeAt_(c, u, o);
-          if (segs) segs[j] = -2;
-          if (fns) fns[j] = lf;
+          if (segs) segs[j] = sv;
+          if (fns) fns[j] = fv;
           j++;
         } while (j < k1 && j < n - 1 && times[j] < lim);
         k = j - 1;
