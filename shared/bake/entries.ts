@@ -27,7 +27,7 @@ import type { Table } from './table';
 import { CUBIC, type Proxy } from './proxy';
 import { entrySlope, keepsDerivative } from './slopes';
 import { cubicAt, cubicSlopeAt } from './poly';
-import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, type Quantizer } from './encoding';
+import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, roundHalfUp, type Quantizer } from './encoding';
 import type { EntryOrigins } from './measure';
 
 const entrySlope_ = entrySlope;
@@ -40,6 +40,7 @@ const encodeOne_ = encodeOne;
 const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
 const minMax_ = minMax;
+const roundHalfUp_ = roundHalfUp;
 
 export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> & { origins?: EntryOrigins | null };
 
@@ -164,7 +165,7 @@ export function roundTrip(q: Quantizer, xs: Float64Array, from: number, to: numb
   for (let j = from; j < to; j++) {
     let c = 0;
     if (sc !== 0) {
-      c = Math.round(((xs[j] - off) / sc) * M);
+      c = roundHalfUp_(((xs[j] - off) / sc) * M);
       c = c < 0 ? 0 : c > M ? M : c;
     }
     xs[j] = off + sc * (c / M);

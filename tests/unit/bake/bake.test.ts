@@ -9,6 +9,7 @@ import {
   bakeCurve, crc32, DEMO_PROFILES, evalTable, interpolationBound, measureError, parseProfile, roundF16, sourceFromDocument,
   writePack, readPack, C_EVALUATOR, writeGltfPack, cssCurve, makeQuantizer, encodeArray, type Profile, type BakeSource,
 } from '../../../shared/bake';
+import { roundHalfUp } from '../../../shared/bake/encoding';
 import { sourceValue } from '../../../shared/bake/source';
 import { cubicBound, lastCertified } from '../../../shared/bake/measure';
 import { maxAbsCubic } from '../../../shared/bake/poly';
@@ -159,6 +160,16 @@ describe('exact error routine', () => {
     // NaN never skips: the bound is NaN (every comparison false)
     expect(cubicBound(0, Number.NaN, 0, 0, 1)).toBeNaN();
     expect(cubicBound(0, 0, 0, Number.NaN, 1)).toBeNaN();
+  });
+
+  it('roundHalfUp is Math.round (ECMA-262 §21.3.2.28) for every double, −0 and NaN included (fast-check)', () => {
+    const same = (y: number): void => { expect(Object.is(roundHalfUp(y), Math.round(y)), `y = ${y}`).toBe(true); };
+    fc.assert(fc.property(fc.double(), same), { numRuns: 3000 });
+    // codes of a unorm16 range and the halves between them
+    fc.assert(fc.property(fc.integer({ min: -2, max: 65537 }), fc.constantFrom(0, 0.5, -0.5, 2 ** -40, -(2 ** -40)), (c, f) => same(c + f)), { numRuns: 2000 });
+    // ties, the largest double below ½ (the sum y + 0.5 rounds up to 1), the ends of the range ⌊y + 0.5⌋ is used in
+    for (const y of [0.49999999999999994, 0.5, 1.5, 2.5, 65534.5, 65535.49999999999, -0, 0, -0.5, -0.49999999999999994, -1.5,
+      2 ** 52 - 0.5, 2 ** 52 - 1.5, 2 ** 52, 2 ** 52 + 1, 2 ** 53 + 2, Infinity, -Infinity, Number.NaN, Number.MIN_VALUE, -Number.MIN_VALUE]) same(y);
   });
 
   it('an estimate that also certifies gives both measurements of a separate pass each (fast-check)', () => {
