@@ -368,6 +368,14 @@ function setShifts(o: EntryOrigins, qv: Quantizer | null, qm: Quantizer | null):
   if (qm) o.shiftM = unormShift(qm.offset, qm.offset + qm.scale, M);
 }
 
+/** The origins of a built table's entries (fn: fillEntries' fns), decoded with its own quantizers. */
+export function tableOrigins(table: Table, fn: Int32Array, proxy: Proxy | null): EntryOrigins {
+  const o: EntryOrigins = { fn, proxy, shiftV: 0, shiftM: 0, rel: 0 };
+  const e = table.encoding;
+  setShifts(o, { encoding: e, offset: table.valueOffset, scale: table.valueScale }, table.slopes ? { encoding: e, offset: table.slopeOffset, scale: table.slopeScale } : null);
+  return o;
+}
+
 export interface TrialOutcome {
   /** The estimate's figure (the window's when it rejected, else the whole table's). */
   e: number;

@@ -100,6 +100,14 @@ export interface MeasureOptions {
    * number of an entry before it (nor past the first entry at or after `to`).
    */
   startRegion?: number;
+  /**
+   * With `estimate` and `stopAbove` (not with `alsoCertify`): only whether the estimate exceeds stopAbove
+   * is asked. A piece whose estimate figure cannot exceed stopAbove is then skipped even where it could
+   * raise the figures found so far: a measurement that stops returns the same figures as without this
+   * (the first piece above stopAbove, in the same order, is the largest), one that does not stop returns
+   * figures ≤ stopAbove that need not be the largest error.
+   */
+  decideOnly?: boolean;
 }
 
 /**
@@ -178,6 +186,7 @@ function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Flo
  * keeps the first of equal figures, so such a piece is skipped with every result the same.
  */
 function cannotChange(ub: number, Ek: number, estimate: boolean): boolean {
+  if (ub - Ek <= decideFloor) return true;
   return estimate
     ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert))
     : ub <= bestErr && ub + Ek <= certified;
@@ -185,6 +194,8 @@ function cannotChange(ub: number, Ek: number, estimate: boolean): boolean {
 
 /** State shared by one measurement (kept in a module slot to avoid allocation). */
 let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
+/** MeasureOptions.decideOnly: a piece whose estimate figure is at most this is skipped (−Infinity: off). */
+let decideFloor = -Infinity;
 /** The stand-in leaf proxyPiece started from last in this measurement (−1: none yet). */
 let leafCursor = -1;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
@@ -440,6 +451,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   let runChecked = -1;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
   dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
+  decideFloor = estimate && !dual && opts.decideOnly === true && opts.stopAbove !== undefined ? opts.stopAbove : -Infinity;
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;

@@ -9,13 +9,12 @@
  *    without slack, a lower bound of the true error, so a count it rejects surely fails). The error is not
  *    always monotone in N (a kink's place against the grid), so the search bisects on "some count among
  *    j − 8 … j passes", which ends at an N that passes while N − 1 … N − 9 all fail.
- *    The estimate stops at the first piece above tol, and a count is first tried on a few entries around
- *    each of the last 4 places where a rejected count failed (the search spends most counts there).
- * 4. Certify N with the full measure (exact or sampled+bound); if the proof misses, N counts as failed,
- *    the search gallops up from N on the same window question and bisects again (at most 32 rounds).
- *    A whole-table estimate also takes the certifying measurement in the same pass (./measure.ts
- *    alsoCertify), so the proof of N is usually already at hand when the search ends: the trial table
- *    holds the same numbers as the table built for N (./entries.ts).
+ *    The estimate only decides (./measure.ts decideOnly): it stops at the first piece above tol and
+ *    skips every piece whose bound is below it; a count is first tried on a few entries around each of
+ *    the last 4 places where a rejected count failed (the search spends most counts there).
+ * 4. Certify N with the full measure (exact or sampled+bound), on the table built for N with the origins
+ *    of its entries (./entries.ts tableOrigins); if the proof misses, N counts as failed, the search
+ *    gallops up from N on the same window question and bisects again (at most 32 rounds).
  * Entry values are the right-continuous source values; slopes the exact derivative (the mean of the two
  * one-sided slopes where an entry lands exactly on a slope break); where that derivative is not finite
  * (a vertical tangent) the secant over ⅛ grid step into the segment (./slopes.ts entrySlope). Inside a
@@ -28,19 +27,18 @@ import type { BakeSource } from './source';
 import { minMax, makeQuantizer, type Quantizer } from './encoding';
 import type { Profile } from './profile';
 import type { Break } from './breaks';
-import { lastCertified, measureCertified, measureError, proxyDistance, type ErrorMeasure, type MeasureOptions } from './measure';
+import { measureCertified, measureError, proxyDistance, type ErrorMeasure, type MeasureOptions } from './measure';
 import { proxyFor, hasSampledSegments, CUBIC, type Proxy } from './proxy';
 import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS, windowHalfWidth } from './entries';
+import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS, windowHalfWidth, tableOrigins } from './entries';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
 const measureError_ = measureError;
 const measureCertified_ = measureCertified;
-const lastCertified_ = lastCertified;
 const uniformTimes_ = uniformTimes;
 const assembleTable_ = assembleTable;
 const minMax_ = minMax;
@@ -72,15 +70,15 @@ export function uniformTable(src: BakeSource, profile: Profile, n: number, break
 }
 
 /** uniformTable, with the entry values and the segment of each (−2 where not the source's own value) for MeasureOptions.knotValues. */
-function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): { table: Table; values: Float64Array; segs: Int32Array } {
+function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): { table: Table; values: Float64Array; segs: Int32Array; fns: Int32Array } {
   const S = src.times;
   const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
   const times = uniformTimes_(A, B, n);
   const values = new Float64Array(n);
   const slopes = profile.kernel === 'hermite' ? new Float64Array(n) : null;
-  const segs = new Int32Array(n);
-  fillEntries_(src, proxy, times, values, slopes, breaks, segs);
-  return { table: assembleTable_(profile, times, null, values, slopes), values, segs };
+  const segs = new Int32Array(n), fns = new Int32Array(n);
+  fillEntries_(src, proxy, times, values, slopes, breaks, segs, fns);
+  return { table: assembleTable_(profile, times, null, values, slopes), values, segs, fns };
 }
 
 /** Reused buffers of the trial tables the search measures and throws away (grown on demand). */
@@ -135,11 +133,8 @@ export function bakeUniform(
   const tried = new Map<number, number>();
   const estimates = new Map<number, number>();
   const tables = new Map<number, { table: Table; measure: ErrorMeasure }>();
-  const estOpts = { tolerance: tol, estimate: true, stopAbove: tol, alsoCertify: true };
-  // the certifying measurement of each count whose whole-table estimate passed (taken in the same pass)
-  const proofs = new Map<number, ErrorMeasure>();
-  const keepProof = (n: number): void => { const c = lastCertified_(); if (c) proofs.set(n, c); };
-  const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false };
+  const estOpts = { tolerance: tol, estimate: true, stopAbove: tol, decideOnly: true };
+  const winOpts = { tolerance: tol, estimate: true, stopAbove: tol, includeEnd: false, decideOnly: true };
   // a window trial's options: its stopping figure (tol, or above it for the raw window test of unorm
   // trials) and the region holding its start, set per window (./entries.ts WindowTrials.run)
   const trialWin: MeasureOptions = { ...winOpts };
@@ -171,7 +166,7 @@ export function bakeUniform(
           trialWin.startRegion = region;
           return measureCertified_(src, v, trialWin, wa, wb);
         },
-        (v) => { const m = measureError_(src, v, estOpts); keepProof(n); return { e: m.certified, at: m.at }; });
+        (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
       e = r.e;
       if (r.fullAt !== null && e > tol) failedAt(r.fullAt);
       else if (r.spot > 0) failedAt(spots[r.spot]);
@@ -191,7 +186,6 @@ export function bakeUniform(
       }
       if (e === Infinity) {
         const m = measureError_(src, table, estOpts);
-        keepProof(n);
         e = m.certified;
         if (e > tol) failedAt(m.at);
       }
@@ -202,11 +196,12 @@ export function bakeUniform(
   };
   const certify = (idx: number): boolean => {
     const n = cand.at(idx);
-    let built: { table: Table; values: Float64Array; segs: Int32Array } | null;
+    let built: { table: Table; values: Float64Array; segs: Int32Array; fns: Int32Array } | null;
     try { built = uniformTableWithKnots(src, profile, n, breaks, proxy); } catch { built = null; }
     if (!built) { tried.set(n, Infinity); return false; }
     const table = built.table;
-    const measure = proofs.get(n) ?? measureError_(src, table, { ...opts, knotValues: built.values, knotSegments: built.segs });
+    const view = { ...table, origins: tableOrigins(table, built.fns, proxy) };
+    const measure = measureError_(src, view, { ...opts, knotValues: built.values, knotSegments: built.segs });
     tried.set(n, measure.certified);
     tables.set(n, { table, measure });
     return measure.certified <= tol;

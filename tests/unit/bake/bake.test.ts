@@ -172,6 +172,29 @@ describe('exact error routine', () => {
       2 ** 52 - 0.5, 2 ** 52 - 1.5, 2 ** 52, 2 ** 52 + 1, 2 ** 53 + 2, Infinity, -Infinity, Number.NaN, Number.MIN_VALUE, -Number.MIN_VALUE]) same(y);
   });
 
+  it('an estimate that only decides (decideOnly) gives the same answer, and the same figures wherever it stops (fast-check)', () => {
+    // every segment kind, hermite and linear tables, stopping figures below, near and above the estimate
+    let stopped = 0, through = 0;
+    fc.assert(fc.property(
+      fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('step', 'linear', 'hermite', 'bezier', 'shape', undefined),
+      fc.constantFrom('hermite', 'linear'), fc.integer({ min: 2, max: 300 }), fc.constantFrom(5e-4, 2e-3, 1e-2),
+      fc.constantFrom(0.3, 0.9, 0.999, 1.001, 2),
+      (seed, kind, kernel, n, tol, f) => {
+        const src = sourceFromDocument(randomCurve(rng(seed), `d-${seed}`, kind as never, 6));
+        const tab = uniformTable(src, profile({ kernel: kernel as Profile['kernel'], layout: 'uniform' }), n, findBreaks(src), tol);
+        const full = measureError(src, tab, { tolerance: tol, estimate: true });
+        const stop = full.certified * f;
+        const plain = measureError(src, tab, { tolerance: tol, estimate: true, stopAbove: stop });
+        const decided = measureError(src, tab, { tolerance: tol, estimate: true, stopAbove: stop, decideOnly: true });
+        expect(decided.certified > stop).toBe(plain.certified > stop);
+        expect(decided.certified > stop).toBe(full.certified > stop);
+        if (plain.certified > stop) { expect(decided).toEqual(plain); stopped++; }
+        else { expect(decided.certified).toBeLessThanOrEqual(plain.certified); through++; }
+      }), { numRuns: 300, seed: 7118 });
+    expect(stopped).toBeGreaterThan(100);
+    expect(through).toBeGreaterThan(100);
+  });
+
   it('an estimate that also certifies gives both measurements of a separate pass each (fast-check)', () => {
     // every segment kind, hermite and linear tables; the dual pass must not change the estimate and must
     // give exactly the figures of the certifying measure (the uniform search reuses it as the proof)
