@@ -88,20 +88,13 @@ export interface MeasureOptions {
    */
   stopAbove?: number;
   /**
-   * With `estimate`: also take the certifying measurement (as without `estimate`) in the same pass, read
-   * afterwards with lastCertified(). The estimate's figures, and where it stops (stopAbove applies to the
-   * estimate), are unchanged; the certifying figures are those of measureError without `estimate` when
-   * the pass was not stopped and no piece was left to sampling (lastCertified() is null otherwise).
-   */
-  alsoCertify?: boolean;
-  /**
    * Optional: the table region holding `from` (the largest k with times[k] ≤ from, −1 when none), when the
    * caller knows it. The measure then starts there instead of searching the times, and reads no time or
    * number of an entry before it (nor past the first entry at or after `to`).
    */
   startRegion?: number;
   /**
-   * With `estimate` and `stopAbove` (not with `alsoCertify`): only whether the estimate exceeds stopAbove
+   * With `estimate` and `stopAbove`: only whether the estimate exceeds stopAbove
    * is asked. A piece whose estimate figure cannot exceed stopAbove is then skipped even where it could
    * raise the figures found so far: a measurement that stops returns the same figures as without this
    * (the first piece above stopAbove, in the same order, is the largest), one that does not stop returns
@@ -181,14 +174,15 @@ function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Flo
 
 /**
  * Whether a piece whose computed maximum e = max |g − p| is at most ub cannot change the figures found so
- * far (Ek: the stand-in leaf's distance, 0 for an exact piece): the estimate records e − Ek (the dual pass
- * also e + Ek and, where e leads, the true error, at most e + Ek), the certifying measure e + Ek; record()
- * keeps the first of equal figures, so such a piece is skipped with every result the same.
+ * far (Ek: the stand-in leaf's distance, 0 for an exact piece): the estimate records e − Ek, the
+ * certifying measure e + Ek; record() keeps the first of equal figures, so such a piece is skipped with
+ * every result the same. With MeasureOptions.decideOnly, also any piece whose estimate figure cannot
+ * exceed the stopping figure.
  */
 function cannotChange(ub: number, Ek: number, estimate: boolean): boolean {
   if (ub - Ek <= decideFloor) return true;
   return estimate
-    ? ub - Ek <= bestErr && ub - Ek <= certified && (!dual || (ub <= cBest && ub + Ek <= cCert))
+    ? ub - Ek <= bestErr && ub - Ek <= certified
     : ub <= bestErr && ub + Ek <= certified;
 }
 
@@ -200,20 +194,6 @@ let decideFloor = -Infinity;
 let leafCursor = -1;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
 let splitBudget = 0;
-/**
- * The certifying figures taken alongside an estimate (MeasureOptions.alsoCertify): dual is on for the
- * pass, dualValid false once a piece was left to sampling (the two measures sample differently there).
- */
-let dual = false, dualValid = false, cBest = 0, cAt = 0, cCert = 0;
-
-/** record() for the certifying figures of a dual pass. */
-function recordCert(err: number, at: number, cert: number): void {
-  if (err !== err) err = Infinity;
-  if (cert !== cert) cert = Infinity;
-  if (err > cBest) { cBest = err; cAt = at; }
-  if (cert > cCert) cCert = cert;
-}
-
 /**
  * Fold one piece's figures in. A NaN error (a non-finite table or source number) counts as +Infinity:
  * `NaN > x` is false, so without this a NaN piece would count as 0 and the table would pass.
@@ -261,7 +241,6 @@ function exactPiece(p: Float64Array, s0: number, x0: number, x1: number): void {
   if (cannotChange(cubicBound(DIFF[0], DIFF[1], DIFF[2], DIFF[3], L), 0, true)) return;
   const e = maxAbsCubic_(DIFF, L);
   record(e, x0 + MAX_SLOT[1], e);
-  if (dual) recordCert(e, x0 + MAX_SLOT[1], e);
 }
 
 /**
@@ -315,7 +294,6 @@ function tabM1(origin: number, x1: number): number {
  * |g| ≤ max(|g(a)|, |g(b)|) + |f(b) − f(a)| + M1_p·(b − a).
  */
 function sliver(src: BakeSource, i: number, a: number, b: number, origin: number): void {
-  dualValid = false;
   const ga = gAt(src, i, a, origin), gb = gAt(src, i, b, origin);
   const w = b - a;
   const M1 = src.bound(i, 1, a, b);
@@ -332,7 +310,6 @@ function sampledPiece(
   src: BakeSource, i: number, x0: number, x1: number, origin: number, slackAbs: number, maxSamples: number, estimate: boolean, depth: number,
 ): void {
   sampledUsed = true;
-  dualValid = false;
   const L = x1 - x0;
   const M = src.bound(i, 2, x0, x1) + tabM2(origin, x0, x1);
   if (!estimate) {
@@ -395,11 +372,6 @@ function proxyPiece(
     if (estimate) {
       const low = e - E[k] > 0 ? e - E[k] : 0;
       record(low, at, low);
-      // the certifying figures, as the branches below record them (a leaf either skip rule passes over changes nothing)
-      if (dual) {
-        if (e > cBest || e !== e) recordCert(gAt(src, i, at, x0), at, e + E[k]);
-        else recordCert(0, at, e + E[k]);
-      }
     } else if (e > bestErr || e !== e) {
       record(gAt(src, i, at, x0), at, e + E[k]);
     } else {
@@ -415,16 +387,6 @@ function proxyPiece(
 export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): ErrorMeasure {
   measureInto(src, tab, opts, from, to);
   return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
-}
-
-/**
- * The certifying measurement taken alongside the last estimate with MeasureOptions.alsoCertify: the
- * figures measureError without `estimate` gives for the same table and range, or null when that pass was
- * stopped early, left a piece to sampling, or was not a dual pass.
- */
-export function lastCertified(): ErrorMeasure | null {
-  if (!dual || !dualValid) return null;
-  return { maxError: cBest, at: cAt, certified: cCert, method: sampledUsed ? 'sampled+bound' : 'exact' };
 }
 
 /** measureError's `certified` figure alone, without allocating (searches that only compare it with a tolerance). */
@@ -450,8 +412,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   // regions before this one were in a run of regions inside one cubic whose bound was checked
   let runChecked = -1;
   bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
-  dual = estimate && opts.alsoCertify === true; dualValid = dual; cBest = 0; cAt = A; cCert = 0;
-  decideFloor = estimate && !dual && opts.decideOnly === true && opts.stopAbove !== undefined ? opts.stopAbove : -Infinity;
+  decideFloor = estimate && opts.decideOnly === true && opts.stopAbove !== undefined ? opts.stopAbove : -Infinity;
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;
@@ -526,7 +487,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
           if (!proxy) proxy = proxyFor_(src, slackAbs);
           proxyPiece(src, proxy, i, x0, x1, estimate ? tolAbs : slackAbs, maxSamples, estimate);
         }
-        if (certified > stopAbove) { dualValid = false; break pieces; }
+        if (certified > stopAbove) break pieces;
       }
       if (x1 >= b) break;
       x0 = x1;
@@ -534,10 +495,9 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
     }
   }
   // the end point itself (a step into the last key shows only there)
-  if (certified > stopAbove) { dualValid = false; return; }
+  if (certified > stopAbove) return;
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
     const e = Math.abs(src.endValue - evalTable_(tab, B));
     record(e, B, e);
-    if (dual) recordCert(e, B, e);
   }
 }
