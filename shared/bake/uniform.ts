@@ -219,12 +219,17 @@ export function bakeUniform(
     for (let m = j; m >= 0 && m >= j - SCAN_BELOW; m--) if (ok(m)) return m;
     return -1;
   };
-  // every figure of a rejected count is a lower bound of its error (a window or a measure stopped at the
-  // first piece above tol), so the message names the largest count's figure as "at least"
+  // refused: the largest count's whole table measured to its end (the estimate: every figure of it a
+  // true error or a lower bound of one), so the message names its largest error and where, whatever
+  // the search's trials looked at
   const none = () => {
-    const N = cand.at(cand.size - 1), e = estimates.get(N);
-    const at = spots.length === 0 ? '' : `, near t = ${Number(spots[0].toPrecision(4))} s`;
-    return `curve "${src.name}": no uniform table of at most ${N} entries stays within ${tol.toPrecision(3)} (with ${N} entries the error is still at least ${e === undefined ? 'unknown' : e.toPrecision(3)}${at}); use the adaptive layout or a larger tolerance`;
+    const N = cand.at(cand.size - 1);
+    let what = 'unknown';
+    try {
+      const m = measureError_(src, trialTable(src, profile, N, breaks, proxy), { tolerance: tol, estimate: true });
+      what = `${m.certified.toPrecision(3)}, near t = ${Number(m.at.toPrecision(4))} s`;
+    } catch { /* a table that cannot be encoded (f16 overflow): no figure */ }
+    return `curve "${src.name}": no uniform table of at most ${N} entries stays within ${tol.toPrecision(3)} (with ${N} entries the error is still at least ${what}); use the adaptive layout or a larger tolerance`;
   };
   let lo = -1, hi = -1;
   // a count that passes the estimate: i0, or the first found galloping upward from it; then bisect on P

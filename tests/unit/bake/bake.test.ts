@@ -231,6 +231,21 @@ describe('uniform minimality', () => {
       }
     }
   });
+  it('a curve no allowed count can bake is refused naming the largest count\'s largest error and where', () => {
+    // a shape with a vertical tangent (the generated library's c-40): no linear table of ≤ 4096 entries is within 4e-3
+    const src = sourceFromDocument(randomCurve(rng(90_040), 'c-40', 'shape', 6));
+    const p = DEMO_PROFILES[2];
+    const b = bakeCurve(src, p);
+    expect(b.ok).toBe(false);
+    if (b.ok) return;
+    const m = /"c-40": no uniform table of at most 4096 entries .* still at least ([0-9.e-]+), near t = ([0-9.e-]+) s/.exec(b.error);
+    expect(m, b.error).not.toBeNull();
+    // the figure: the estimate of the 4096-entry table measured to its end (a lower bound of its error)
+    const est = measureError(src, uniformTable(src, p, 4096, findBreaks(src, 3), p.tolerance.value), { tolerance: p.tolerance.value, estimate: true });
+    expect(Number(m![1])).toBe(Number(est.certified.toPrecision(3)));
+    expect(Number(m![2])).toBe(Number(est.at.toPrecision(4)));
+    expect(denseError(src, uniformTable(src, p, 4096, findBreaks(src, 3), p.tolerance.value), 40000)).toBeGreaterThan(p.tolerance.value);
+  });
   it('a jump wider than twice the tolerance is refused with the curve name and time', () => {
     const src = polySource('flash', [{ t: 0, v: 0 }, { t: 0.5, v: 0 }, { t: 0.5, v: 1 }, { t: 1, v: 1 }], ['linear', 'linear', 'linear']);
     const b = bakeCurve(src, DEMO_PROFILES[2]);
