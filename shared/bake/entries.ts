@@ -213,8 +213,10 @@ interface Pieces {
    */
   vFlat: Uint8Array;
   mFlat: Uint8Array;
-  /** [lo, hi] over every piece: values at 0, 1; slopes at 2, 3 (±Infinity where a piece has no range). */
+  /** [lo, hi] over every piece with finite ranges: values at 0, 1; slopes at 2, 3. */
   all: Float64Array;
+  /** The pieces left out of `all`: a value or slope range not finite (a sliver or sampled leaf, no cubic). */
+  open: Int32Array;
   /** Piece order by increasing lower bound / decreasing upper bound, for values and slopes. */
   vLo: Int32Array; vHi: Int32Array; mLo: Int32Array; mHi: Int32Array;
 }
@@ -268,7 +270,9 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   const count = a.length;
   const V = Float64Array.from(vr), M = Float64Array.from(mr);
   const all = new Float64Array([Infinity, -Infinity, Infinity, -Infinity]);
+  const open: number[] = [];
   for (let q = 0; q < count; q++) {
+    if (!(Number.isFinite(V[2 * q]) && Number.isFinite(V[2 * q + 1]) && Number.isFinite(M[2 * q]) && Number.isFinite(M[2 * q + 1]))) { open.push(q); continue; }
     if (!(V[2 * q] >= all[0])) all[0] = V[2 * q];
     if (!(V[2 * q + 1] <= all[1])) all[1] = V[2 * q + 1];
     if (!(M[2 * q] >= all[2])) all[2] = M[2 * q];
@@ -276,7 +280,7 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   }
   return {
     count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
-    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf), all,
+    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf), all, open: Int32Array.from(open),
     vLo: pieceOrder(V, 0, count, false), vHi: pieceOrder(V, 1, count, true),
     mLo: pieceOrder(M, 0, count, false), mHi: pieceOrder(M, 1, count, true),
   };
@@ -613,21 +617,32 @@ export class WindowTrials {
 
   /**
    * δ of run()'s raw window test for n entries: how far quantizing can move the table (Infinity when a
-   * range is unbounded). The rounding of the quantizer's arithmetic is covered by a margin far above it.
+   * range is not a number). The numbers are within the ranges of the pieces with finite ranges, the
+   * entries special() takes and those of the pieces without (slivers next to a vertical tangent, which
+   * rarely hold an entry), taken here. The rounding of the quantizer's arithmetic is covered by a margin
+   * far above it.
    */
   private quantizeShift(n: number): number {
     const P = this.pieces!, M = unormMax_(this.profile.encoding as 'unorm8' | 'unorm16');
     this.special(0, n);
+    this.takeOpen(XV, n);
     const v0 = Math.min(EXT[0], P.all[0]), v1 = Math.max(EXT[1], P.all[1]);
     let d = unormShift(v0, v1, M);
     if (this.hermite) {
       this.special(1, n);
+      this.takeOpen(XM, n);
       const m0 = Math.min(EXT[0], P.all[2]), m1 = Math.max(EXT[1], P.all[3]);
       d += (this.h / 4) * unormShift(m0, m1, M);
     }
     // the measure's own rounding on the perturbed numbers (far below this)
     d += 1e-9 * (1 + Math.abs(v0) + Math.abs(v1));
     return d === d ? d : Infinity;
+  }
+
+  /** Fold into EXT the entries of the pieces without finite ranges (Pieces.open). */
+  private takeOpen(X: Float64Array, n: number): void {
+    const P = this.pieces!, open = P.open;
+    for (let j = 0; j < open.length; j++) { const q = open[j]; this.takePiece(X, q, this.lb(P.a[q]), this.lb(P.b[q]), false, n); }
   }
 
   /** Fold into EXT (reset first) the entries not read from a piece's function: outside the domain, and for slopes the last entry and those on breaks. */
