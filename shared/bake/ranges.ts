@@ -1,10 +1,11 @@
 /**
  * Value and slope ranges of a source curve over its domain: exact on cubic segments (extremes at the
  * ends or at roots of the derivative), 65 equally spaced samples per segment otherwise. Used for the
- * relative tolerance (tolerance × value range) and for the unorm offset/scale of adaptive tables.
+ * relative tolerance (tolerance × value range) and for the unorm offset/scale of adaptive tables;
+ * rangeWidthBound bounds the width from above without sampling (the unorm round-off check).
  */
 import type { BakeSource } from './source';
-import { cubicAt } from './poly';
+import { CUBIC, SAMPLED, type Proxy } from './proxy';
 
 export interface Range { min: number; max: number }
 
@@ -25,6 +26,56 @@ export function sourceRange(src: BakeSource, order: 0 | 1): Readonly<Range> {
   return (slot[order] ??= computeRange(src, order));
 }
 
+/** Fold into r the exact range over u ∈ [0, L] of c0 + c1·u + c2·u² + c3·u³ (ends and critical points). */
+function cubicRangeInto(r: Range, c0: number, c1: number, c2: number, c3: number, L: number): void {
+  const at = (u: number) => c0 + u * (c1 + u * (c2 + u * c3));
+  consider(r, at(0));
+  consider(r, at(L));
+  // critical points: c1 + 2c2 u + 3c3 u² = 0
+  const A = 3 * c3, B = 2 * c2, C = c1;
+  if (A !== 0) {
+    const d = B * B - 4 * A * C;
+    if (d >= 0) {
+      const q = -0.5 * (B + (B >= 0 ? Math.sqrt(d) : -Math.sqrt(d)));
+      if (q !== 0) {
+        for (const u of [q / A, C / q]) if (u > 0 && u < L) consider(r, at(u));
+      }
+    }
+  } else if (B !== 0) {
+    const u = -C / B;
+    if (u > 0 && u < L) consider(r, at(u));
+  }
+}
+
+/**
+ * An upper bound of the width of the value range over the domain, without sampling: a cubic segment's
+ * exact range, and on the other segments the range of each stand-in leaf's cubic (./proxy.ts) widened by
+ * its proven distance to the source (a constant leaf: its value ± that distance), plus 1e-9 of the
+ * magnitudes for rounding. At least sourceRange's width (its samples lie in the range). Infinity where a
+ * segment has a leaf without a figure (left to sampling) or no stand-ins (P null).
+ */
+export function rangeWidthBound(src: BakeSource, P: Proxy | null): number {
+  const T = src.times;
+  const r: Range = { min: src.endValue, max: src.endValue };
+  let err = 0;
+  for (let i = 0; i < T.length - 1; i++) {
+    const a = T[i], b = T[i + 1];
+    if (!(b > a)) continue;
+    const p = src.poly(i);
+    if (p) { cubicRangeInto(r, p[0], p[1], p[2], p[3], b - a); continue; }
+    if (!P || !(P.first[i + 1] > P.first[i])) return Infinity;
+    for (let k = P.first[i]; k < P.first[i + 1]; k++) {
+      if (P.kind[k] === SAMPLED) return Infinity;
+      const o = 4 * k, c = P.c;
+      if (P.kind[k] === CUBIC) cubicRangeInto(r, c[o], c[o + 1], c[o + 2], c[o + 3], P.b[k] - P.a[k]);
+      else consider(r, c[o]);
+      if (P.err[k] > err) err = P.err[k];
+    }
+  }
+  const w = r.max - r.min + 2 * err;
+  return w === w ? w + 1e-9 * (Math.abs(r.min) + Math.abs(r.max) + w) + 1e-300 : Infinity;
+}
+
 function computeRange(src: BakeSource, order: 0 | 1): Range {
   const T = src.times;
   const r: Range = { min: Infinity, max: -Infinity };
@@ -34,29 +85,9 @@ function computeRange(src: BakeSource, order: 0 | 1): Range {
     const L = b - a;
     const p = src.poly(i);
     if (p) {
-      // derivative polynomial coefficients for order 1: p'(u) = c1 + 2c2 u + 3c3 u²
-      const c0 = order === 0 ? p[0] : p[1];
-      const c1 = order === 0 ? p[1] : 2 * p[2];
-      const c2 = order === 0 ? p[2] : 3 * p[3];
-      const c3 = order === 0 ? p[3] : 0;
-      const at = (u: number) => c0 + u * (c1 + u * (c2 + u * c3));
-      consider(r, at(0));
-      consider(r, at(L));
-      // critical points: c1 + 2c2 u + 3c3 u² = 0
-      const A = 3 * c3, B = 2 * c2, C = c1;
-      if (A !== 0) {
-        const d = B * B - 4 * A * C;
-        if (d >= 0) {
-          const q = -0.5 * (B + (B >= 0 ? Math.sqrt(d) : -Math.sqrt(d)));
-          if (q !== 0) {
-            for (const u of [q / A, C / q]) if (u > 0 && u < L) consider(r, at(u));
-          }
-        }
-      } else if (B !== 0) {
-        const u = -C / B;
-        if (u > 0 && u < L) consider(r, at(u));
-      }
-      void cubicAt;
+      // order 1: the derivative polynomial p'(u) = c1 + 2c2 u + 3c3 u²
+      if (order === 0) cubicRangeInto(r, p[0], p[1], p[2], p[3], L);
+      else cubicRangeInto(r, p[1], 2 * p[2], 3 * p[3], 0, L);
     } else {
       // a non-finite sample (a vertical tangent's slope) is left out: entries take a finite slope
       // there (./slopes.ts) and the encoding clamps a slope outside the range; the measure decides

@@ -10,10 +10,11 @@ import {
   writePack, readPack, C_EVALUATOR, writeGltfPack, cssCurve, makeQuantizer, encodeArray, type Profile, type BakeSource,
 } from '../../../shared/bake';
 import { roundHalfUp } from '../../../shared/bake/encoding';
+import { rangeWidthBound, sourceRange } from '../../../shared/bake/ranges';
 import { sourceValue } from '../../../shared/bake/source';
 import { cubicBound } from '../../../shared/bake/measure';
 import { maxAbsCubic } from '../../../shared/bake/poly';
-import { bakeUniform, uniformTable } from '../../../shared/bake/uniform';
+import { bakeUniform, entryProxy, uniformTable } from '../../../shared/bake/uniform';
 import { findBreaks } from '../../../shared/bake/breaks';
 import { aprioriBound, boundOrder, derivativeBound } from '../../../shared/bake/bound';
 import { randomCurve, rng } from '../../../bench/library';
@@ -160,6 +161,22 @@ describe('exact error routine', () => {
     // NaN never skips: the bound is NaN (every comparison false)
     expect(cubicBound(0, Number.NaN, 0, 0, 1)).toBeNaN();
     expect(cubicBound(0, 0, 0, Number.NaN, 1)).toBeNaN();
+  });
+
+  it('rangeWidthBound is at least the width of the sampled and of a dense range, and finite for most curves (fast-check)', () => {
+    let finite = 0;
+    fc.assert(fc.property(fc.integer({ min: 0, max: 1e6 }), fc.constantFrom('step', 'linear', 'hermite', 'bezier', 'shape', undefined), (seed, kind) => {
+      const src = sourceFromDocument(randomCurve(rng(seed), `r-${seed}`, kind as never, 6));
+      const w = rangeWidthBound(src, entryProxy(src, 2e-3));
+      const r = sourceRange(src, 0);
+      expect(w).toBeGreaterThanOrEqual(r.max - r.min);
+      const a = src.times[0], b = src.times[src.times.length - 1];
+      let lo = Infinity, hi = -Infinity;
+      for (let j = 0; j <= 5000; j++) { const v = sourceValue(src, a + ((b - a) * j) / 5000); if (Number.isFinite(v)) { lo = Math.min(lo, v); hi = Math.max(hi, v); } }
+      expect(w).toBeGreaterThanOrEqual(hi - lo);
+      if (Number.isFinite(w)) finite++;
+    }), { numRuns: 300, seed: 5150 });
+    expect(finite).toBeGreaterThan(280);
   });
 
   it('roundHalfUp is Math.round (ECMA-262 §21.3.2.28) for every double, −0 and NaN included (fast-check)', () => {
