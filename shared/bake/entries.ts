@@ -679,7 +679,8 @@ export class WindowTrials {
   }
 
   /**
-   * take() for the entries [k0, k1) of piece q (their segment and leaf are the piece's: no search). On a
+   * take() for the entries [k0, k1) of piece q: filled as one run (fillRange) when more than two, else
+   * each with the piece's segment and leaf (no search). On a
    * flat piece one entry after the piece's start and before the last entry stands for all (the entries
    * that may read another number, on a break at the start or the last, are taken by extremes() itself).
    */
@@ -689,6 +690,7 @@ export class WindowTrials {
       const k = k0 < n && this.tAt(k0) > P.a[q] ? k0 : k0 + 1;
       if (k < k1 && k < n - 1) { k0 = k; k1 = k + 1; }
     }
+    if (k1 - k0 > 2) this.fillRange(k0, k1);
     for (let k = k0; k < k1; k++) {
       if (STAMP[k] !== stamp) this.fillWith(k, seg, lf);
       const x = X[k];
