@@ -90,12 +90,29 @@ export function roundTrip(q: Quantizer, x: number): number {
   return decodeOne(q, encodeOne(q, x));
 }
 
-/** Encode a whole array. */
+/** Encode a whole array (encodeOne and decodeOne per number; the unorm and f32 loops written out, the same arithmetic). */
 export function encodeArray(q: Quantizer, xs: Float64Array): Encoded {
   const n = xs.length;
   const codes: Codes =
     q.encoding === 'f32' ? new Float32Array(n) : q.encoding === 'unorm8' ? new Uint8Array(n) : new Uint16Array(n);
   const decoded = new Float64Array(n);
+  if (q.encoding === 'unorm8' || q.encoding === 'unorm16') {
+    const M = unormMax(q.encoding), off = q.offset, sc = q.scale;
+    for (let i = 0; i < n; i++) {
+      let c = 0;
+      if (sc !== 0) {
+        c = roundHalfUp(((xs[i] - off) / sc) * M);
+        c = c < 0 ? 0 : c > M ? M : c;
+      }
+      codes[i] = c;
+      decoded[i] = off + sc * (c / M);
+    }
+    return { codes, decoded, offset: off, scale: sc };
+  }
+  if (q.encoding === 'f32') {
+    for (let i = 0; i < n; i++) { const c = Math.fround(xs[i]); codes[i] = c; decoded[i] = c; }
+    return { codes, decoded, offset: q.offset, scale: q.scale };
+  }
   for (let i = 0; i < n; i++) {
     const c = encodeOne(q, xs[i]);
     codes[i] = c;
