@@ -9,7 +9,7 @@ import {
   bakeCurve, crc32, DEMO_PROFILES, evalTable, interpolationBound, measureError, parseProfile, roundF16, sourceFromDocument,
   writePack, readPack, C_EVALUATOR, writeGltfPack, cssCurve, makeQuantizer, encodeArray, type Profile, type BakeSource,
 } from '../../../shared/bake';
-import { roundHalfUp } from '../../../shared/bake/encoding';
+import { decodeOne, encodeOne, roundHalfUp } from '../../../shared/bake/encoding';
 import { rangeWidthBound, sourceRange } from '../../../shared/bake/ranges';
 import { sourceValue } from '../../../shared/bake/source';
 import { cubicBound } from '../../../shared/bake/measure';
@@ -50,6 +50,21 @@ describe('number formats', () => {
         for (let i = 0; i < xs.length; i++) expect(Math.abs(e.decoded[i] - xs[i])).toBeLessThanOrEqual(((hi - lo) / (2 * M)) * (1 + 1e-6) + 1e-12);
       }
     }), { numRuns: 150 });
+  });
+  it('encodeArray gives the codes and decoded numbers of encodeOne and decodeOne number by number (fast-check)', () => {
+    fc.assert(fc.property(fc.array(fc.double({ min: -3, max: 5, noNaN: true }), { minLength: 1, maxLength: 50 }), fc.constantFrom(0, 1e-3, -0.25), (xs, widen) => {
+      const arr = Float64Array.from(xs);
+      const lo = Math.min(...xs) - Math.abs(widen), hi = Math.max(...xs) + widen;
+      for (const enc of ['unorm8', 'unorm16', 'f32', 'f16'] as const) {
+        const q = makeQuantizer(enc, lo, hi);
+        const e = encodeArray(q, arr);
+        for (let i = 0; i < xs.length; i++) {
+          const c = encodeOne(q, xs[i]);
+          expect(e.codes[i]).toBe(enc === 'f32' ? c : c + 0); // unorm: the stored code (−0 is stored as 0)
+          expect(Object.is(e.decoded[i], decodeOne(q, c))).toBe(true);
+        }
+      }
+    }), { numRuns: 200 });
   });
   it('CRC-32 check value of "123456789" is 0xCBF43926 (common practice, from memory)', () => {
     expect(crc32(new Uint8Array([...'123456789'].map((c) => c.charCodeAt(0))))).toBe(0xcbf43926);
