@@ -1,9 +1,66 @@
 import bezierEasing from 'bezier-easing';
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import {
   bernstein, bezierEase, bezierEaseBound, bezierSolve, evaluate, evaluateDerivative, prepareCurve, segmentDerivativeBound,
 } from '../../../shared/curve';
 import { linspace, makeDoc } from './helpers';
+
+/**
+ * The bound as it was written before its coefficients were hoisted (bernstein() per figure), kept as the
+ * reference the hoisted one must equal number for number (the baker's stand-ins and outputs depend on it).
+ */
+/** max |P^(k)| over s ∈ [a, b] for the Bernstein cubic (k = 1 quadratic, 2 linear, 3 constant). */
+function maxAbsDerivative(p0: number, p1: number, p2: number, p3: number, k: number, a: number, b: number): number {
+  let m = Math.max(Math.abs(bernstein(p0, p1, p2, p3, a, k)), Math.abs(bernstein(p0, p1, p2, p3, b, k)));
+  if (k === 1) {
+    const bb = 3 * (p2 - 2 * p1 + p0);
+    const aa = p3 - p0 - 3 * (p1 - p0) - bb;
+    if (aa !== 0) {
+      const v = -bb / (3 * aa);
+      if (v > a && v < b) m = Math.max(m, Math.abs(bernstein(p0, p1, p2, p3, v, 1)));
+    }
+  }
+  return m;
+}
+
+/** min x'(s) over [a, b] (x' is a quadratic: ends and vertex). */
+function minXSpeed(x1: number, x2: number, a: number, b: number): number {
+  let m = Math.min(bernstein(0, x1, x2, 1, a, 1), bernstein(0, x1, x2, 1, b, 1));
+  const bb = 3 * (x2 - 2 * x1);
+  const aa = 1 - 3 * x1 - bb;
+  if (aa !== 0) {
+    const v = -bb / (3 * aa);
+    if (v > a && v < b) m = Math.min(m, bernstein(0, x1, x2, 1, v, 1));
+  }
+  return m;
+}
+
+function referenceBound(x1: number, x2: number, y0: number, y1: number, y2: number, y3: number, order: number, Xa: number, Xb: number): number {
+  const sa = Math.max(0, bezierSolve(0, x1, x2, 1, Math.min(Xa, Xb)) - 1e-12);
+  const sb = Math.min(1, bezierSolve(0, x1, x2, 1, Math.max(Xa, Xb)) + 1e-12);
+  const xmin = minXSpeed(x1, x2, sa, sb);
+  if (!(xmin > 0)) return Infinity;
+  const X1 = maxAbsDerivative(0, x1, x2, 1, 1, sa, sb);
+  const X2 = maxAbsDerivative(0, x1, x2, 1, 2, sa, sb);
+  const X3 = maxAbsDerivative(0, x1, x2, 1, 3, sa, sb);
+  const Y1 = maxAbsDerivative(y0, y1, y2, y3, 1, sa, sb);
+  const Y2 = maxAbsDerivative(y0, y1, y2, y3, 2, sa, sb);
+  const Y3 = maxAbsDerivative(y0, y1, y2, y3, 3, sa, sb);
+  const N = Y2 * X1 + Y1 * X2;
+  const N1 = Y3 * X1 + Y1 * X3;
+  const N2 = Y3 * X2 + Y2 * X3;
+  const M = N1 * X1 + 3 * N * X2;
+  const M1 = N2 * X1 + 2 * N1 * X2 + 3 * N * X3;
+  let r: number;
+  switch (order) {
+    case 1: r = Y1 / xmin; break;
+    case 2: r = N / xmin ** 3; break;
+    case 3: r = M / xmin ** 5; break;
+    default: r = (M1 * X1 + 5 * M * X2) / xmin ** 7;
+  }
+  return r * (1 + 1e-12);
+}
 
 // W3C CSS Easing Functions Level 1 keyword control points (REFERENCES.md).
 const KEYWORDS: Record<string, [number, number, number, number]> = {
@@ -84,6 +141,16 @@ describe('bezier derivatives (chain rule) and their bound', () => {
           expect(Math.abs(fd - exact) / Math.max(1, Math.abs(exact))).toBeLessThan(1e-4);
         }
       }
+    }
+  });
+  it('the bound is the same number as the reference written with bernstein() per figure (fast-check)', () => {
+    const unit = fc.oneof(fc.double({ min: 0, max: 1, noNaN: true }), fc.constantFrom(0, 1, 0.5, 1 / 3, 2 / 3, 1e-9, 1 - 1e-9));
+    const val = fc.oneof(fc.double({ min: -2, max: 3, noNaN: true }), fc.constantFrom(0, 1, 0.5));
+    fc.assert(fc.property(unit, unit, val, val, val, val, fc.integer({ min: 1, max: 4 }), unit, unit, (x1, x2, y0, y1, y2, y3, k, a, b) => {
+      expect(Object.is(bezierEaseBound(x1, x2, y0, y1, y2, y3, k, a, b), referenceBound(x1, x2, y0, y1, y2, y3, k, a, b))).toBe(true);
+    }), { numRuns: 5000 });
+    for (const [x1, x2, y0, y1, y2, y3] of cases) for (const k of [1, 2, 3, 4]) for (const [a, b] of [[0, 1], [0.1, 0.3], [0.5, 0.9], [0, 0.5]]) {
+      expect(Object.is(bezierEaseBound(x1, x2, y0, y1, y2, y3, k, a, b), referenceBound(x1, x2, y0, y1, y2, y3, k, a, b))).toBe(true);
     }
   });
   it('the bound never falls below sampled |d^k y/dX^k|, and is Infinity at a vertical tangent', () => {
