@@ -180,16 +180,22 @@ function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Flo
  * exceed the stopping figure.
  */
 function cannotChange(ub: number, Ek: number, estimate: boolean): boolean {
-  if (ub - Ek <= decideFloor) return true;
+  if (ub - Ek <= FIG[FLOOR]) return true;
   return estimate
-    ? ub - Ek <= bestErr && ub - Ek <= certified
-    : ub <= bestErr && ub + Ek <= certified;
+    ? ub - Ek <= FIG[ERR] && ub - Ek <= FIG[CERT]
+    : ub <= FIG[ERR] && ub + Ek <= FIG[CERT];
 }
 
-/** State shared by one measurement (kept in a module slot to avoid allocation). */
-let bestErr = 0, bestAt = 0, certified = 0, sampledUsed = false;
-/** MeasureOptions.decideOnly: a piece whose estimate figure is at most this is skipped (−Infinity: off). */
-let decideFloor = -Infinity;
+/**
+ * State shared by one measurement (kept in module slots to avoid allocation). The figures are in a typed
+ * array: the largest error (FIG[ERR]) and its time (FIG[AT]), the certified figure (FIG[CERT]), and the
+ * figure MeasureOptions.decideOnly skips a piece at or below (FIG[FLOOR], −Infinity: off). A double kept in a
+ * module variable is a heap number that each assignment allocates anew; a typed array's slots are written
+ * in place.
+ */
+const ERR = 0, AT = 1, CERT = 2, FLOOR = 3;
+const FIG = new Float64Array([0, 0, 0, -Infinity]);
+let sampledUsed = false;
 /** The stand-in leaf proxyPiece started from last in this measurement (−1: none yet). */
 let leafCursor = -1;
 /** Halvings left in this measurement (bounds that stay infinite over a whole range would otherwise split forever). */
@@ -201,14 +207,14 @@ let splitBudget = 0;
 export function record(err: number, at: number, cert: number): void {
   if (err !== err) err = Infinity;
   if (cert !== cert) cert = Infinity;
-  if (err > bestErr) { bestErr = err; bestAt = at; }
-  if (cert > certified) certified = cert;
+  if (err > FIG[ERR]) { FIG[ERR] = err; FIG[AT] = at; }
+  if (cert > FIG[CERT]) FIG[CERT] = cert;
 }
 
 /** The figures record() has folded in since the last reset (for tests of the NaN rule). */
-export function recorded(): { maxError: number; certified: number } { return { maxError: bestErr, certified }; }
+export function recorded(): { maxError: number; certified: number } { return { maxError: FIG[ERR], certified: FIG[CERT] }; }
 /** Reset the figures record() folds into (measureError does this itself). */
-export function resetRecord(): void { bestErr = 0; bestAt = 0; certified = 0; }
+export function resetRecord(): void { FIG[ERR] = 0; FIG[AT] = 0; FIG[CERT] = 0; }
 
 /**
  * DIFF = g(· + s) − p(· + r): the cubic g whose coefficients start at c[o] re-expanded about s, minus the
@@ -265,14 +271,17 @@ export function cubicBound(d0: number, d1: number, d2: number, d3: number, L: nu
 }
 
 /**
- * Known source values at the current table region's two entries (MeasureOptions.knotValues): time, segment
- * the value was taken from (−2: none) and the value src.value(segment, time, 0) itself.
+ * Known source values at the current table region's two entries (MeasureOptions.knotValues): time
+ * (KNOWN[KT0], KNOWN[KT1]; NaN: none), segment the value was taken from (hS0, hS1; −2: none) and the value
+ * src.value(segment, time, 0) itself (KNOWN[KV0], KNOWN[KV1]).
  */
-let hT0 = Number.NaN, hS0 = -2, hV0 = 0, hT1 = Number.NaN, hS1 = -2, hV1 = 0;
+const KT0 = 0, KV0 = 1, KT1 = 2, KV1 = 3;
+const KNOWN = new Float64Array([Number.NaN, 0, Number.NaN, 0]);
+let hS0 = -2, hS1 = -2;
 
 /** |f − p| at t (TAB holds the table cubic about `origin`). */
 function gAt(src: BakeSource, i: number, t: number, origin: number): number {
-  const f = t === hT0 && i === hS0 ? hV0 : t === hT1 && i === hS1 ? hV1 : src.value(i, t, 0);
+  const f = t === KNOWN[KT0] && i === hS0 ? KNOWN[KV0] : t === KNOWN[KT1] && i === hS1 ? KNOWN[KV1] : src.value(i, t, 0);
   const e = Math.abs(f - cubicAt_(TAB, t - origin));
   return e === e ? e : Infinity; // NaN counts as failure
 }
@@ -372,7 +381,7 @@ function proxyPiece(
     if (estimate) {
       const low = e - E[k] > 0 ? e - E[k] : 0;
       record(low, at, low);
-    } else if (e > bestErr || e !== e) {
+    } else if (e > FIG[ERR] || e !== e) {
       record(gAt(src, i, at, x0), at, e + E[k]);
     } else {
       record(0, at, e + E[k]);
@@ -386,16 +395,16 @@ function proxyPiece(
  */
 export function measureError(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): ErrorMeasure {
   measureInto(src, tab, opts, from, to);
-  return { maxError: bestErr, at: bestAt, certified, method: sampledUsed ? 'sampled+bound' : 'exact' };
+  return { maxError: FIG[ERR], at: FIG[AT], certified: FIG[CERT], method: sampledUsed ? 'sampled+bound' : 'exact' };
 }
 
 /** measureError's `certified` figure alone, without allocating (searches that only compare it with a tolerance). */
 export function measureCertified(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): number {
   measureInto(src, tab, opts, from, to);
-  return certified;
+  return FIG[CERT];
 }
 
-/** The measurement itself: leaves its figures in the module state (bestErr, bestAt, certified, sampledUsed). */
+/** The measurement itself: leaves its figures in the module state (FIG, sampledUsed). */
 function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from?: number, to?: number): void {
   const S = src.times;
   const ns = S.length - 1;
@@ -411,8 +420,8 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const O = tab.origins ?? null, F = O ? O.fn : null;
   // regions before this one were in a run of regions inside one cubic whose bound was checked
   let runChecked = -1;
-  bestErr = 0; bestAt = A; certified = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
-  decideFloor = estimate && opts.decideOnly === true && opts.stopAbove !== undefined ? opts.stopAbove : -Infinity;
+  FIG[ERR] = 0; FIG[AT] = A; FIG[CERT] = 0; sampledUsed = false; splitBudget = 2000; leafCursor = -1;
+  FIG[FLOOR] = estimate && opts.decideOnly === true && opts.stopAbove !== undefined ? opts.stopAbove : -Infinity;
   // first table region at A
   // the largest k with K[k] ≤ A (−1 when none; K is non-decreasing), by bisection
   let k = -1;
@@ -427,7 +436,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const stopAbove = opts.stopAbove ?? Infinity;
   const KV = opts.knotValues && opts.knotSegments ? opts.knotValues : null;
   const KS = opts.knotSegments;
-  hT0 = hT1 = Number.NaN; hS0 = hS1 = -2;
+  KNOWN[KT0] = KNOWN[KT1] = Number.NaN; hS0 = hS1 = -2;
   let proxy: Proxy | null = null;
   pieces: for (let i = 0; i < ns; i++) {
     const a = Math.max(S[i], A), b = Math.min(S[i + 1], B);
@@ -479,15 +488,15 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
         }
         tableCoeffs(tab, k, x0);
         if (KV && k >= 0 && k + 1 < nk) {
-          hT0 = K[k]; hS0 = KS![k]; hV0 = KV[k];
-          hT1 = K[k + 1]; hS1 = KS![k + 1]; hV1 = KV[k + 1];
-        } else { hT0 = hT1 = Number.NaN; }
+          KNOWN[KT0] = K[k]; hS0 = KS![k]; KNOWN[KV0] = KV[k];
+          KNOWN[KT1] = K[k + 1]; hS1 = KS![k + 1]; KNOWN[KV1] = KV[k + 1];
+        } else { KNOWN[KT0] = KNOWN[KT1] = Number.NaN; }
         if (exact) exactPiece(poly, s0, x0, x1);
         else {
           if (!proxy) proxy = proxyFor_(src, slackAbs);
           proxyPiece(src, proxy, i, x0, x1, estimate ? tolAbs : slackAbs, maxSamples, estimate);
         }
-        if (certified > stopAbove) break pieces;
+        if (FIG[CERT] > stopAbove) break pieces;
       }
       if (x1 >= b) break;
       x0 = x1;
@@ -495,7 +504,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
     }
   }
   // the end point itself (a step into the last key shows only there)
-  if (certified > stopAbove) return;
+  if (FIG[CERT] > stopAbove) return;
   if (opts.includeEnd !== false && (to === undefined || to >= S[ns])) {
     const e = Math.abs(src.endValue - evalTable_(tab, B));
     record(e, B, e);

@@ -28,9 +28,8 @@ export function sourceRange(src: BakeSource, order: 0 | 1): Readonly<Range> {
 
 /** Fold into r the exact range over u ∈ [0, L] of c0 + c1·u + c2·u² + c3·u³ (ends and critical points). */
 function cubicRangeInto(r: Range, c0: number, c1: number, c2: number, c3: number, L: number): void {
-  const at = (u: number) => c0 + u * (c1 + u * (c2 + u * c3));
-  consider(r, at(0));
-  consider(r, at(L));
+  consider(r, c0 + 0 * (c1 + 0 * (c2 + 0 * c3)));
+  consider(r, c0 + L * (c1 + L * (c2 + L * c3)));
   // critical points: c1 + 2c2 u + 3c3 u² = 0
   const A = 3 * c3, B = 2 * c2, C = c1;
   if (A !== 0) {
@@ -38,12 +37,14 @@ function cubicRangeInto(r: Range, c0: number, c1: number, c2: number, c3: number
     if (d >= 0) {
       const q = -0.5 * (B + (B >= 0 ? Math.sqrt(d) : -Math.sqrt(d)));
       if (q !== 0) {
-        for (const u of [q / A, C / q]) if (u > 0 && u < L) consider(r, at(u));
+        const u1 = q / A, u2 = C / q;
+        if (u1 > 0 && u1 < L) consider(r, c0 + u1 * (c1 + u1 * (c2 + u1 * c3)));
+        if (u2 > 0 && u2 < L) consider(r, c0 + u2 * (c1 + u2 * (c2 + u2 * c3)));
       }
     }
   } else if (B !== 0) {
     const u = -C / B;
-    if (u > 0 && u < L) consider(r, at(u));
+    if (u > 0 && u < L) consider(r, c0 + u * (c1 + u * (c2 + u * c3)));
   }
 }
 
