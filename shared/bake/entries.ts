@@ -223,9 +223,16 @@ interface Pieces {
 
 function makePieces(src: BakeSource, P: Proxy | null): Pieces {
   const S = src.times, ns = S.length - 1;
-  const a: number[] = [], b: number[] = [], vr: number[] = [], mr: number[] = [], sg: number[] = [], lf: number[] = [];
-  const vf: number[] = [], mf: number[] = [];
+  // the pieces counted first, then written straight into typed arrays
+  let count = 0;
+  for (let i = 0; i < ns; i++) {
+    if (!(S[i + 1] > S[i])) continue;
+    count += src.poly(i) ? POLY_PIECES : P ? P.first[i + 1] - P.first[i] : 1;
+  }
+  const a = new Float64Array(count), b = new Float64Array(count), V = new Float64Array(2 * count), M = new Float64Array(2 * count);
+  const sg = new Int32Array(count), lf = new Int32Array(count), vf = new Uint8Array(count), mf = new Uint8Array(count);
   const R = new Float64Array(2);
+  let q = 0;
   for (let i = 0; i < ns; i++) {
     const s0 = S[i], s1 = S[i + 1];
     if (!(s1 > s0)) continue;
@@ -233,9 +240,9 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
     if (poly) {
       for (let j = 0; j < POLY_PIECES; j++) {
         const x0 = j === 0 ? s0 : s0 + ((s1 - s0) * j) / POLY_PIECES, x1 = j === POLY_PIECES - 1 ? s1 : s0 + ((s1 - s0) * (j + 1)) / POLY_PIECES;
-        a.push(x0); b.push(x1); sg.push(i); lf.push(-1);
-        vf.push(poly[1] === 0 && poly[2] === 0 && poly[3] === 0 ? 1 : 0);
-        mf.push(poly[2] === 0 && poly[3] === 0 ? 1 : 0);
+        a[q] = x0; b[q] = x1; sg[q] = i; lf[q] = -1;
+        vf[q] = poly[1] === 0 && poly[2] === 0 && poly[3] === 0 ? 1 : 0;
+        mf[q] = poly[2] === 0 && poly[3] === 0 ? 1 : 0;
         // the polynomial about its own origin, shifted to x0 (exact shift in doubles is not needed: widened)
         const u0 = x0 - s0, L = x1 - x0;
         const c0 = poly[0] + u0 * (poly[1] + u0 * (poly[2] + u0 * poly[3]));
@@ -245,33 +252,33 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
         cubicRange(c0, c1, c2, c3, L, R, 0);
         // widen by the shift's rounding too (u0 up to the segment length)
         const wid = 1e-12 * (Math.abs(poly[0]) + (Math.abs(poly[1]) + (Math.abs(poly[2]) + Math.abs(poly[3]) * (s1 - s0)) * (s1 - s0)) * (s1 - s0));
-        vr.push(R[0] - wid, R[1] + wid);
+        V[2 * q] = R[0] - wid; V[2 * q + 1] = R[1] + wid;
         cubicRange(c1, 2 * c2, 3 * c3, 0, L, R, 0);
         const widM = 1e-12 * (Math.abs(poly[1]) + (2 * Math.abs(poly[2]) + 3 * Math.abs(poly[3]) * (s1 - s0)) * (s1 - s0));
-        mr.push(R[0] - widM, R[1] + widM);
+        M[2 * q] = R[0] - widM; M[2 * q + 1] = R[1] + widM;
+        q++;
       }
     } else if (P) {
       for (let k = P.first[i]; k < P.first[i + 1]; k++) {
-        a.push(P.a[k]); b.push(P.b[k]); sg.push(i); lf.push(k);
-        if (P.kind[k] !== CUBIC) { vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity); vf.push(0); mf.push(0); continue; }
+        a[q] = P.a[k]; b[q] = P.b[k]; sg[q] = i; lf[q] = k;
+        if (P.kind[k] !== CUBIC) { V[2 * q] = M[2 * q] = -Infinity; V[2 * q + 1] = M[2 * q + 1] = Infinity; q++; continue; }
         const o = 4 * k, c = P.c, L = P.b[k] - P.a[k];
-        vf.push(c[o + 1] === 0 && c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0);
-        mf.push(c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0);
+        vf[q] = c[o + 1] === 0 && c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0;
+        mf[q] = c[o + 2] === 0 && c[o + 3] === 0 ? 1 : 0;
         cubicRange(c[o], c[o + 1], c[o + 2], c[o + 3], L, R, 0);
-        vr.push(R[0], R[1]);
+        V[2 * q] = R[0]; V[2 * q + 1] = R[1];
         cubicRange(c[o + 1], 2 * c[o + 2], 3 * c[o + 3], 0, L, R, 0);
-        mr.push(R[0], R[1]);
+        M[2 * q] = R[0]; M[2 * q + 1] = R[1];
+        q++;
       }
     } else {
-      a.push(s0); b.push(s1); sg.push(i); lf.push(-1); vr.push(-Infinity, Infinity); mr.push(-Infinity, Infinity);
-      vf.push(0); mf.push(0);
+      a[q] = s0; b[q] = s1; sg[q] = i; lf[q] = -1; V[2 * q] = M[2 * q] = -Infinity; V[2 * q + 1] = M[2 * q + 1] = Infinity;
+      q++;
     }
   }
-  const count = a.length;
-  const V = Float64Array.from(vr), M = Float64Array.from(mr);
   const all = new Float64Array([Infinity, -Infinity, Infinity, -Infinity]);
   const open: number[] = [];
-  for (let q = 0; q < count; q++) {
+  for (q = 0; q < count; q++) {
     if (!(Number.isFinite(V[2 * q]) && Number.isFinite(V[2 * q + 1]) && Number.isFinite(M[2 * q]) && Number.isFinite(M[2 * q + 1]))) { open.push(q); continue; }
     if (!(V[2 * q] >= all[0])) all[0] = V[2 * q];
     if (!(V[2 * q + 1] <= all[1])) all[1] = V[2 * q + 1];
@@ -279,8 +286,8 @@ function makePieces(src: BakeSource, P: Proxy | null): Pieces {
     if (!(M[2 * q + 1] <= all[3])) all[3] = M[2 * q + 1];
   }
   return {
-    count, seg: Int32Array.from(sg), leaf: Int32Array.from(lf), a: Float64Array.from(a), b: Float64Array.from(b), values: V, slopes: M,
-    vFlat: Uint8Array.from(vf), mFlat: Uint8Array.from(mf), all, open: Int32Array.from(open),
+    count, seg: sg, leaf: lf, a, b, values: V, slopes: M,
+    vFlat: vf, mFlat: mf, all, open: Int32Array.from(open),
     vLo: pieceOrder(V, 0, count, false), vHi: pieceOrder(V, 1, count, true),
     mLo: pieceOrder(M, 0, count, false), mHi: pieceOrder(M, 1, count, true),
   };
