@@ -33,7 +33,7 @@ import { uniformTimes, type Table } from './table';
 import { assembleTable } from './knots';
 import { derivativeBound, widthForTolerance, boundOrder } from './bound';
 import { candidates } from './candidates';
-import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS, windowHalfWidth, tableOrigins } from './entries';
+import { fillEntries, roundTrip, WindowTrials, MAX_SPOTS, windowHalfWidth, tableOrigins, type TrialView } from './entries';
 
 // Imported functions used in the hot loops, held in module constants (a CommonJS bundle turns each
 // call through an imported binding into a getter call on the exporting module).
@@ -154,19 +154,20 @@ export function bakeUniform(
   // trial tables that fill only the entries a window measure reads (./entries.ts)
   const trials = WindowTrials.applies(profile) ? new WindowTrials(src, profile, breaks, proxy) : null;
   // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
+  // the measurements of a window trial (made once: ok runs for every count tried)
+  const measureWindow = (v: TrialView, stop: number, wa: number, wb: number, region: number): number => {
+    trialWin.stopAbove = stop;
+    trialWin.startRegion = region;
+    return measureCertified_(src, v, trialWin, wa, wb);
+  };
+  const measureWhole = (v: TrialView): { e: number; at: number } => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; };
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
     const seen = estimates.get(n);
     if (seen !== undefined) return seen <= tol;
     let e = Infinity;
     if (trials) {
-      const r = trials.run(n, spots, tol,
-        (v, stop, wa, wb, region) => {
-          trialWin.stopAbove = stop;
-          trialWin.startRegion = region;
-          return measureCertified_(src, v, trialWin, wa, wb);
-        },
-        (v) => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; });
+      const r = trials.run(n, spots, tol, measureWindow, measureWhole);
       e = r.e;
       if (r.fullAt !== null && e > tol) failedAt(r.fullAt);
       else if (r.spot > 0) failedAt(spots[r.spot]);
