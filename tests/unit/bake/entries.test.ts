@@ -13,7 +13,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { DEMO_PROFILES, sourceFromDocument, type Profile } from '../../../shared/bake';
-import { WindowTrials, unormShift, type TrialView } from '../../../shared/bake/entries';
+import { WindowTrials, pieceOrder, unormShift, type TrialView } from '../../../shared/bake/entries';
 import { findBreaks } from '../../../shared/bake/breaks';
 import { CUBIC } from '../../../shared/bake/proxy';
 import { entryProxy, uniformTable } from '../../../shared/bake/uniform';
@@ -163,5 +163,19 @@ describe('window trials fill the numbers of the whole table', () => {
     expect(originsChecked).toBeGreaterThan(100);
     // raw windows of curves with stand-in leaves that have no cubic (slivers next to a vertical tangent)
     expect(openChecked).toBeGreaterThan(2);
+  });
+});
+
+describe('piece order for the unorm extremes', () => {
+  it('is a stable sort by the range ends, up or down, ties and infinite ends by index (fast-check)', () => {
+    const end = fc.oneof(fc.integer({ min: -5, max: 5 }).map((x) => x / 4), fc.constantFrom(-Infinity, Infinity), fc.double({ min: -10, max: 10, noNaN: true }));
+    fc.assert(fc.property(fc.array(end, { minLength: 0, maxLength: 300, size: 'max' }), fc.constantFrom(0, 1), fc.boolean(), (ends, o, down) => {
+      const count = ends.length >> 1;
+      const R = Float64Array.from(ends.slice(0, 2 * count));
+      const key = (q: number) => R[2 * q + o];
+      // the reference: Array.prototype.sort (stable, ECMA-262 §23.1.3.30) by key, then by index
+      const want = Array.from({ length: count }, (_, q) => q).sort((x, y) => (key(x) === key(y) ? x - y : (down ? key(y) > key(x) : key(x) > key(y)) ? 1 : -1));
+      expect(Array.from(pieceOrder(R, o as 0 | 1, count, down))).toEqual(want);
+    }), { numRuns: 400 });
   });
 });
