@@ -114,6 +114,16 @@ export function bezierEase(
   return (M1 * xd1 - 5 * M * xd2) / (x2p * x2p * x2p * xd1);
 }
 
+/** max |c + 2b·s + 3a·s²| over s ∈ [sa, sb] (the derivative of a power-basis cubic: ends and vertex). */
+function maxAbsSpeed(c: number, b: number, a: number, sa: number, sb: number): number {
+  let m = Math.max(Math.abs(c + sa * (2 * b + 3 * a * sa)), Math.abs(c + sb * (2 * b + 3 * a * sb)));
+  if (a !== 0) {
+    const v = -b / (3 * a);
+    if (v > sa && v < sb) m = Math.max(m, Math.abs(c + v * (2 * b + 3 * a * v)));
+  }
+  return m;
+}
+
 /**
  * A rigorous upper bound of |d^k y/dX^k| over X ∈ [Xa, Xb] for the normalised Bézier segment,
  * by interval reasoning on the chain-rule formulas above: the parameter range [sa, sb] is solved
@@ -141,20 +151,10 @@ export function bezierEaseBound(
   if (!(xmin > 0)) return Infinity;
   // the largest first (a quadratic: ends and vertex), second (linear: ends) and third (constant)
   // derivative sizes, as maxAbsDerivative
-  let X1 = Math.max(Math.abs(xc + sa * (2 * xb + 3 * xa * sa)), Math.abs(xc + sb * (2 * xb + 3 * xa * sb)));
-  if (xa !== 0) {
-    const v = -xb / (3 * xa);
-    if (v > sa && v < sb) X1 = Math.max(X1, Math.abs(xc + v * (2 * xb + 3 * xa * v)));
-  }
+  const X1 = maxAbsSpeed(xc, xb, xa, sa, sb), Y1 = maxAbsSpeed(yc, yb, ya, sa, sb);
   const X2 = Math.max(Math.abs(2 * xb + 6 * xa * sa), Math.abs(2 * xb + 6 * xa * sb));
-  const X3 = Math.abs(6 * xa);
-  let Y1 = Math.max(Math.abs(yc + sa * (2 * yb + 3 * ya * sa)), Math.abs(yc + sb * (2 * yb + 3 * ya * sb)));
-  if (ya !== 0) {
-    const v = -yb / (3 * ya);
-    if (v > sa && v < sb) Y1 = Math.max(Y1, Math.abs(yc + v * (2 * yb + 3 * ya * v)));
-  }
   const Y2 = Math.max(Math.abs(2 * yb + 6 * ya * sa), Math.abs(2 * yb + 6 * ya * sb));
-  const Y3 = Math.abs(6 * ya);
+  const X3 = Math.abs(6 * xa), Y3 = Math.abs(6 * ya);
   const N = Y2 * X1 + Y1 * X2;
   const N1 = Y3 * X1 + Y1 * X3;
   const N2 = Y3 * X2 + Y2 * X3;
