@@ -153,7 +153,6 @@ export function bakeUniform(
   const proxy = entryProxy(src, tol);
   // trial tables that fill only the entries a window measure reads (./entries.ts)
   const trials = WindowTrials.applies(profile) ? new WindowTrials(src, profile, breaks, proxy) : null;
-  // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   // the measurements of a window trial (made once: ok runs for every count tried)
   const measureWindow = (v: TrialView, stop: number, wa: number, wb: number, region: number): number => {
     trialWin.stopAbove = stop;
@@ -161,6 +160,7 @@ export function bakeUniform(
     return measureCertified_(src, v, trialWin, wa, wb);
   };
   const measureWhole = (v: TrialView): { e: number; at: number } => { const m = measureError_(src, v, estOpts); return { e: m.certified, at: m.at }; };
+  // ok(idx): the cheap estimate (a lower bound for sampled pieces, exact for exact ones) meets tol
   const ok = (idx: number): boolean => {
     const n = cand.at(idx);
     const seen = estimates.get(n);
