@@ -152,17 +152,19 @@ function tableCoeffs(tab: TableView, k: number, x0: number): Float64Array {
  * differ from g's values and slopes (EntryOrigins shifts). Added: 1e-10·(Q + H·Q1 + |v̂| + H·|m̂|), Q and
  * Q1 the term sums of g and g' over its interval, far above every rounding on the way (reading the entries
  * from g, the table's coefficients, the shift to the piece, the difference and its maximum, each a few
- * ulps of these sums). H, |v̂| and |m̂| are the largest over the regions.
+ * ulps of these sums). H is the largest width over the regions; |v̂| and |m̂| are bounded by Q and Q1
+ * (the numbers were read from g and g' on its interval) with the shifts, so no entry is read.
  */
-function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Float64Array, V: Float64Array, Ms: Float64Array | null, k: number, k1: number, O: EntryOrigins, Ek: number, estimate: boolean): boolean {
-  let H = 0, vm = 0, mm = 0;
+function insideSkips(c: Float64Array, o: number, Lg: number, org: number, T: Float64Array, hermite: boolean, k: number, k1: number, O: EntryOrigins, Ek: number, estimate: boolean): boolean {
+  let H = 0;
   for (let j = k; j < k1; j++) { const w = T[j + 1] - T[j]; if (w > H) H = w; }
-  for (let j = k; j <= k1; j++) { const v = Math.abs(V[j]); if (v > vm) vm = v; }
   const c0 = Math.abs(c[o]), c1 = Math.abs(c[o + 1]), c2 = Math.abs(c[o + 2]), c3 = Math.abs(c[o + 3]);
   const Q = c0 + Lg * (c1 + Lg * (c2 + Lg * c3)), Q1 = c1 + Lg * (2 * c2 + 3 * Lg * c3);
+  // the decoded numbers' sizes, bounded without reading them: the numbers read are g and g' on its
+  // interval (at most Q and Q1), and decoding moves them by at most the shifts
+  const vm = Q * (1 + O.rel) + O.shiftV, mm = hermite ? Q1 * (1 + O.rel) + O.shiftM : 0;
   let fit: number;
-  if (Ms) {
-    for (let j = k; j <= k1; j++) { const m = Math.abs(Ms[j]); if (m > mm) mm = m; }
+  if (hermite) {
     fit = (H * (O.shiftM + O.rel * mm)) / 4;
   } else {
     // g'' is linear: its largest size over the regions' span is at one of the span's ends
@@ -414,7 +416,7 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
   const tolAbs = opts.tolerance;
   const slackAbs = proxyDistance(opts.tolerance, opts.slackFraction);
   const maxSamples = opts.maxSamples ?? 256;
-  const K = tab.times, V = tab.values;
+  const K = tab.times;
   const Ms = tab.kernel === 'hermite' && tab.slopes ? tab.slopes : null;
   const nk = K.length;
   const O = tab.origins ?? null, F = O ? O.fn : null;
@@ -473,9 +475,9 @@ function measureInto(src: BakeSource, tab: TableView, opts: MeasureOptions, from
               // (no further than the first entry at or after B: the measure reads nothing past it)
               while (last + 1 < nk && K[last] < B && F[last + 1] === f) last++;
               runChecked = last;
-              if (last > k + 1 && insideSkips(g, go, Lg, org, K, V, Ms, k, last, O!, Ek, estimate)) end = last;
+              if (last > k + 1 && insideSkips(g, go, Lg, org, K, Ms !== null, k, last, O!, Ek, estimate)) end = last;
             }
-            if (end === 0 && insideSkips(g, go, Lg, org, K, V, Ms, k, k + 1, O!, Ek, estimate)) end = k + 1;
+            if (end === 0 && insideSkips(g, go, Lg, org, K, Ms !== null, k, k + 1, O!, Ek, estimate)) end = k + 1;
             if (end > 0) {
               if (!exact) sampledUsed = true;
               x1 = K[end] < b ? K[end] : b;
