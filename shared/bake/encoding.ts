@@ -58,6 +58,13 @@ export function roundHalfUp(y: number): number {
   return y >= 0.5 && y < 4503599627370496 ? Math.floor(y + 0.5) : Math.round(y);
 }
 
+/** The unorm code of x for offset, scale and M = 2ⁿ − 1: round((x − offset)/scale·M) clamped to [0, M] (0 when scale is 0). */
+export function unormCode(x: number, offset: number, scale: number, M: number): number {
+  if (scale === 0) return 0;
+  const c = roundHalfUp(((x - offset) / scale) * M);
+  return c < 0 ? 0 : c > M ? M : c;
+}
+
 /** Encode x to its code (as a number). Throws on f16 overflow. */
 export function encodeOne(q: Quantizer, x: number): number {
   switch (q.encoding) {
@@ -67,12 +74,7 @@ export function encodeOne(q: Quantizer, x: number): number {
       if (!Number.isFinite(r)) throw new RangeError(`value ${x} is outside the f16 range (±65504)`);
       return f16Bits(x);
     }
-    default: {
-      const M = unormMax(q.encoding);
-      if (q.scale === 0) return 0;
-      const c = roundHalfUp(((x - q.offset) / q.scale) * M);
-      return c < 0 ? 0 : c > M ? M : c;
-    }
+    default: return unormCode(x, q.offset, q.scale, unormMax(q.encoding));
   }
 }
 
@@ -99,11 +101,7 @@ export function encodeArray(q: Quantizer, xs: Float64Array): Encoded {
   if (q.encoding === 'unorm8' || q.encoding === 'unorm16') {
     const M = unormMax(q.encoding), off = q.offset, sc = q.scale;
     for (let i = 0; i < n; i++) {
-      let c = 0;
-      if (sc !== 0) {
-        c = roundHalfUp(((xs[i] - off) / sc) * M);
-        c = c < 0 ? 0 : c > M ? M : c;
-      }
+      const c = unormCode(xs[i], off, sc, M);
       codes[i] = c;
       decoded[i] = off + sc * (c / M);
     }

@@ -27,7 +27,7 @@ import type { Table } from './table';
 import { CUBIC, type Proxy } from './proxy';
 import { entrySlope, keepsDerivative } from './slopes';
 import { cubicAt, cubicSlopeAt } from './poly';
-import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, roundHalfUp, type Quantizer } from './encoding';
+import { makeQuantizer, encodeOne, decodeOne, unormMax, minMax, unormCode, type Quantizer } from './encoding';
 import type { EntryOrigins } from './measure';
 
 const entrySlope_ = entrySlope;
@@ -40,7 +40,7 @@ const encodeOne_ = encodeOne;
 const decodeOne_ = decodeOne;
 const unormMax_ = unormMax;
 const minMax_ = minMax;
-const roundHalfUp_ = roundHalfUp;
+const unormCode_ = unormCode;
 
 export type TrialView = Pick<Table, 'kernel' | 'times' | 'values' | 'slopes'> & { origins?: EntryOrigins | null };
 
@@ -162,14 +162,7 @@ export function roundTrip(q: Quantizer, xs: Float64Array, from: number, to: numb
   if (q.encoding === 'f32') { for (let j = from; j < to; j++) xs[j] = Math.fround(xs[j]); return; }
   if (q.encoding === 'f16') { for (let j = from; j < to; j++) xs[j] = decodeOne_(q, encodeOne_(q, xs[j])); return; }
   const M = unormMax_(q.encoding), off = q.offset, sc = q.scale;
-  for (let j = from; j < to; j++) {
-    let c = 0;
-    if (sc !== 0) {
-      c = roundHalfUp_(((xs[j] - off) / sc) * M);
-      c = c < 0 ? 0 : c > M ? M : c;
-    }
-    xs[j] = off + sc * (c / M);
-  }
+  for (let j = from; j < to; j++) xs[j] = off + sc * (unormCode_(xs[j], off, sc, M) / M);
 }
 
 /** [min, max] of c0 + c1·u + c2·u² + c3·u³ over u ∈ [0, L] (ends and the roots of the derivative), widened, into R[at], R[at + 1]. */
