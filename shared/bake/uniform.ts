@@ -69,8 +69,11 @@ export function uniformTable(src: BakeSource, profile: Profile, n: number, break
   return uniformTableWithKnots(src, profile, n, breaks, tol === undefined ? null : entryProxy(src, tol)).table;
 }
 
+/** A built uniform table with its entries' source values, segments and origins (fillEntries' segs, fns). */
+type BuiltTable = { table: Table; values: Float64Array; segs: Int32Array; fns: Int32Array };
+
 /** uniformTable, with the entry values and the segment of each (−2 where not the source's own value) for MeasureOptions.knotValues. */
-function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): { table: Table; values: Float64Array; segs: Int32Array; fns: Int32Array } {
+function uniformTableWithKnots(src: BakeSource, profile: Profile, n: number, breaks: readonly Break[], proxy: Proxy | null): BuiltTable {
   const S = src.times;
   const A = Math.fround(S[0]), B = Math.fround(S[S.length - 1]);
   const times = uniformTimes_(A, B, n);
@@ -197,7 +200,7 @@ export function bakeUniform(
   };
   const certify = (idx: number): boolean => {
     const n = cand.at(idx);
-    let built: { table: Table; values: Float64Array; segs: Int32Array; fns: Int32Array } | null;
+    let built: BuiltTable | null;
     try { built = uniformTableWithKnots(src, profile, n, breaks, proxy); } catch { built = null; }
     if (!built) { tried.set(n, Infinity); return false; }
     const table = built.table;
